@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 const optionalText = (max: number, label: string) =>
-  z.string().trim().max(max, `${label}: use at most ${max} characters.`).default('');
+  z.string().trim().max(max, `${label}: use at most ${max} characters.`);
 
 export const CURRENCIES = ['USD', 'CAD', 'EUR', 'GBP', 'AUD', 'NZD'] as const;
 
@@ -21,14 +21,17 @@ export const OrganizationSettings = z.object({
   city: optionalText(80, 'City'),
   region: optionalText(80, 'State or region'),
   postalCode: optionalText(20, 'Postal code'),
-  country: optionalText(2, 'Country').transform((s) => s.toUpperCase()),
+  country: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^([A-Z]{2})?$/, 'Use the two-letter country code, like US or CA.'),
   phone: z
     .string()
     .trim()
     .max(40, 'Use at most 40 characters.')
-    .regex(/^[0-9+().\-\s]*$/, 'Use digits, spaces and + ( ) - . only.')
-    .default(''),
-  email: z.union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address.' }))]).default(''),
+    .regex(/^[0-9+().\-\s]*$/, 'Use digits, spaces and + ( ) - . only.'),
+  email: z.union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address.' }))]),
   currency: z.enum(CURRENCIES, { error: `Choose one of ${CURRENCIES.join(', ')}.` }),
   timeZone: z.string().trim().refine(isTimeZone, 'Choose a time zone from the list, like America/Chicago.'),
 });

@@ -1,0 +1,56 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import cookieParser from 'cookie-parser';
+import express from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { env } from './env';
+import { logger } from './logger';
+import { csrf } from './middlewares/csrf';
+import { errorHandler, notFoundHandler, requireJson } from './middlewares/errorHandler';
+import { apiRouter } from './routes';
+
+const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', 'dist');
+
+export interface AppOptions {
+  /** Serve the built client from dist/ (production); Vite serves it in development. */
+  serveClient?: boolean;
+}
+
+/** The Express app without listen(), so tests can drive it with supertest. */
+export function createApp(options: AppOptions = {}) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', env.TRUST_PROXY === 'false' ? false : env.TRUST_PROXY);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // The developer mail inbox shows caught HTML mail in a sandboxed srcdoc frame.
+          'frame-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          ...(env.APP_URL.startsWith('https://') ? {} : { 'upgrade-insecure-requests': null }),
+        },
+      },
+      hsts: env.APP_URL.startsWith('https://'),
+    }),
+  );
+  if (env.LOG_LEVEL !== 'silent') app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+
+  app.use('/api', cookieParser(), express.json({ limit: '1mb' }), requireJson, csrf, apiRouter(), notFoundHandler);
+
+  if (options.serveClient) {
+    const index = path.join(distDir, 'index.html');
+    if (!fs.existsSync(index)) throw new Error('dist/index.html is missing: build the client with `npm run build`.');
+    app.use(cookieParser(), csrf);
+    app.use(express.static(distDir, { index: false, maxAge: '1h', setHeaders: (res, file) => {
+      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    } }));
+    // Client-side routes: every other GET gets the app's page.
+    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(index, { headers: { 'Cache-Control': 'no-cache' } }));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

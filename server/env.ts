@@ -1,0 +1,37 @@
+import { z } from 'zod';
+
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'DATABASE_URL must be a postgres:// URL'),
+  JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
+  APP_URL: z.string().url('APP_URL must be a URL like http://localhost:3000').default('http://localhost:3000'),
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'SMTP_URL must be an smtp:// URL').default('smtp://127.0.0.1:2525'),
+  MAIL_FROM: z.string().default('Guyline <no-reply@guyline.test>'),
+  /** The local fakes' own HTTP API (the mail sink's caught messages); set when the fakes run. */
+  MAIL_SINK_URL: z.string().url().optional(),
+  FAKES: z.enum(['on', 'off']).default('off'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  SESSION_DAYS: z.coerce.number().int().min(1).max(90).default(14),
+  /** Express's `trust proxy`: which hops may set X-Forwarded-For (a reverse proxy on this machine by default). */
+  TRUST_PROXY: z.string().default('loopback'),
+  /** Whether the app is reached over HTTPS (then cookies are Secure). */
+  SECURE_COOKIES: z.enum(['on', 'off']).optional(),
+});
+
+export type Env = z.infer<typeof EnvSchema>;
+
+function load(): Env {
+  const parsed = EnvSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const first = parsed.error.issues[0];
+    // One clear line, then stop: a bad setting must not half-start the server.
+    console.error(`Guyline cannot start: setting ${first.path.join('.')}: ${first.message}`);
+    process.exit(1);
+  }
+  return parsed.data;
+}
+
+export const env: Env = load();
+export const secureCookies = env.SECURE_COOKIES ? env.SECURE_COOKIES === 'on' : env.APP_URL.startsWith('https://');

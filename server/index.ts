@@ -1,0 +1,23 @@
+// Boot only: read settings, connect, start the workers, listen.
+import { createApp } from './app';
+import { sequelize } from './db';
+import { env } from './env';
+import { startWorkers } from './jobs';
+import { logger } from './logger';
+import { stopBoss } from './services/jobs';
+
+await sequelize.authenticate();
+await startWorkers();
+const app = createApp({ serveClient: env.NODE_ENV === 'production' });
+const server = app.listen(env.PORT, env.HOST, () => {
+  logger.info(`Guyline listening on http://${env.HOST}:${env.PORT}`);
+});
+
+async function shutdown() {
+  server.close();
+  await stopBoss().catch(() => {});
+  await sequelize.close().catch(() => {});
+  process.exit(0);
+}
+process.on('SIGINT', shutdown);
+process.on('SIGTERM', shutdown);

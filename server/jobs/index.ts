@@ -1,0 +1,9 @@
+import { getBoss } from '../services/jobs';
+import { registerSendMail } from './sendMail';
+
+/** Starts this process's workers for every background queue. */
+export async function startWorkers() {
+  const boss = await getBoss();
+  await registerSendMail(boss);
+  return boss;
+}

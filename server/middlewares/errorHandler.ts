@@ -1,0 +1,38 @@
+import type { NextFunction, Request, Response } from 'express';
+import { HttpError } from '../errors';
+import { logger } from '../logger';
+
+/** The one JSON error shape: { error: { code, message, fields? } }. Internals never leave. */
+export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
+  if (err instanceof HttpError) {
+    const retry = (err as HttpError & { retryAfterSeconds?: number }).retryAfterSeconds;
+    if (retry) res.setHeader('Retry-After', String(retry));
+    return res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+  }
+  const e = err as { type?: string; status?: number; statusCode?: number };
+  // body-parser's own errors
+  if (e?.type === 'entity.too.large') {
+    return res.status(413).json({ error: { code: 'too_large', message: 'The request is too large.' } });
+  }
+  if (e?.type === 'entity.parse.failed') {
+    return res.status(400).json({ error: { code: 'malformed_json', message: 'The request body is not valid JSON.' } });
+  }
+  if (e?.type === 'charset.unsupported' || e?.type === 'encoding.unsupported') {
+    return res.status(415).json({ error: { code: 'unsupported_media_type', message: 'Send the body as UTF-8 JSON.' } });
+  }
+  logger.error({ err, url: req.originalUrl, method: req.method }, 'request failed');
+  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. Try again, and tell us if it keeps happening.' } });
+}
+
+export function notFoundHandler(req: Request, res: Response) {
+  res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}.` } });
+}
+
+/** Non-JSON writes get a 415 instead of a confusing validation error. */
+export function requireJson(req: Request, res: Response, next: NextFunction) {
+  const hasBody = Number(req.headers['content-length'] ?? 0) > 0 || req.headers['transfer-encoding'] !== undefined;
+  if (['POST', 'PUT', 'PATCH'].includes(req.method) && hasBody && !req.is('application/json') && !req.is('multipart/form-data')) {
+    return res.status(415).json({ error: { code: 'unsupported_media_type', message: 'Send the body as application/json.' } });
+  }
+  next();
+}

@@ -1,0 +1,70 @@
+// `npm start`: sets everything up and runs the product. Plain Node built-ins only.
+import {
+  ensureClientBuild, ensureDependencies, localSecret, runTs, say, spawnTs, startCluster,
+} from './lib.mjs';
+
+ensureDependencies();
+const pgPort = Number(process.env.GUYLINE_PG_PORT ?? 54329);
+const pg = startCluster({ name: 'pg', port: pgPort });
+const port = Number(process.env.PORT ?? 3000);
+const smtpPort = Number(process.env.MAIL_SINK_SMTP_PORT ?? 2525);
+const sinkHttpPort = Number(process.env.MAIL_SINK_HTTP_PORT ?? 2526);
+
+const env = {
+  ...process.env,
+  NODE_ENV: 'production',
+  PORT: String(port),
+  DATABASE_URL: process.env.DATABASE_URL ?? pg.url('guyline'),
+  JWT_SECRET: process.env.JWT_SECRET ?? localSecret('jwt'),
+  APP_URL: process.env.APP_URL ?? `http://localhost:${port}`,
+  SMTP_URL: process.env.SMTP_URL ?? `smtp://127.0.0.1:${smtpPort}`,
+  MAIL_SINK_URL: process.env.MAIL_SINK_URL ?? `http://127.0.0.1:${sinkHttpPort}`,
+  MAIL_SINK_SMTP_PORT: String(smtpPort),
+  MAIL_SINK_HTTP_PORT: String(sinkHttpPort),
+  FAKES: process.env.FAKES ?? 'on',
+};
+
+const children = [];
+let stopping = false;
+function stopAll(code = 0) {
+  if (stopping) return;
+  stopping = true;
+  say('Stopping...');
+  for (const c of children) if (c.exitCode === null) c.kill('SIGTERM');
+  setTimeout(() => {
+    if (pg.startedHere) pg.stop();
+    process.exit(code);
+  }, 800);
+}
+process.on('SIGINT', () => stopAll(0));
+process.on('SIGTERM', () => stopAll(0));
+
+try {
+  runTs('server/cli.ts', ['setup'], env);
+  ensureClientBuild();
+} catch (err) {
+  if (pg.startedHere) pg.stop();
+  throw err;
+}
+
+const fakes = spawnTs('server/fakes/run.ts', [], env);
+const app = spawnTs('server/index.ts', [], env);
+children.push(fakes, app);
+for (const c of children) {
+  c.on('exit', (code) => {
+    if (!stopping) {
+      say(`A process stopped unexpectedly (exit ${code}); stopping everything.`);
+      stopAll(1);
+    }
+  });
+}
+
+setTimeout(() => {
+  if (stopping) return;
+  say('');
+  say(`Guyline runs on ${env.APP_URL}`);
+  say(`Caught mail: ${env.APP_URL}/app/dev/mail (the local mail sink)`);
+  say('Demo sign-ins, password guyline-demo for each:');
+  say('  owner@demo.test   office@demo.test   crew@demo.test   books@demo.test');
+  say('Press Ctrl-C to stop everything (PostgreSQL too).');
+}, 2500);
