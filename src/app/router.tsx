@@ -1,0 +1,77 @@
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useEffect, useMemo } from 'react';
+import { createBrowserRouter, redirect, RouterProvider, type LoaderFunction } from 'react-router';
+import { PageSpinner } from '@/components/ui/spinner';
+import { paths } from '@/config/paths';
+import { setUnauthenticatedHandler } from '@/lib/api';
+import { forgetSignedIn } from '@/features/auth/api/get-me';
+import { RouteError } from './routes/error';
+
+/** What a lazy route module may export. */
+interface RouteModule {
+  default: React.ComponentType;
+  clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+  ErrorBoundary?: React.ComponentType;
+}
+
+/** Turns a route module into lazy route properties, giving its loader the query client. */
+const convert = (queryClient: QueryClient) => (module: RouteModule) => ({
+  Component: module.default,
+  ...(module.clientLoader ? { loader: module.clientLoader(queryClient) } : {}),
+  ...(module.ErrorBoundary ? { ErrorBoundary: module.ErrorBoundary } : {}),
+});
+
+export function createAppRouter(queryClient: QueryClient) {
+  const c = convert(queryClient);
+  return createBrowserRouter([
+    {
+      path: paths.home.path,
+      ErrorBoundary: RouteError,
+      HydrateFallback: PageSpinner,
+      children: [
+        { index: true, loader: () => redirect(paths.app.root.getHref()) },
+        { path: paths.auth.signIn.path, lazy: () => import('./routes/auth/sign-in').then(c) },
+        { path: paths.auth.signUp.path, lazy: () => import('./routes/auth/sign-up').then(c) },
+        { path: paths.auth.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(c) },
+        { path: paths.auth.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(c) },
+        { path: paths.auth.invite.path, lazy: () => import('./routes/auth/invite').then(c) },
+        {
+          path: paths.app.root.path,
+          lazy: () => import('./routes/app/root').then(c),
+          children: [
+            {
+              // Errors inside a page keep the shell and its navigation on screen.
+              ErrorBoundary: RouteError,
+              children: [
+                { index: true, lazy: () => import('./routes/app/dashboard').then(c) },
+                { path: paths.app.users.path, lazy: () => import('./routes/app/users').then(c) },
+                { path: paths.app.settings.path, lazy: () => import('./routes/app/settings').then(c) },
+                { path: paths.app.devMail.path, lazy: () => import('./routes/app/dev-mail').then(c) },
+                { path: '*', lazy: () => import('./routes/not-found').then(c) },
+              ],
+            },
+          ],
+        },
+        { path: '*', lazy: () => import('./routes/not-found').then(c) },
+      ],
+    },
+  ]);
+}
+
+export function AppRouter() {
+  const queryClient = useQueryClient();
+  const router = useMemo(() => createAppRouter(queryClient), [queryClient]);
+
+  useEffect(() => {
+    // A 401 from a data call means the session ended: forget the user and ask them to sign in.
+    setUnauthenticatedHandler(() => {
+      forgetSignedIn(queryClient);
+      const here = router.state.location;
+      if (here.pathname === paths.auth.signIn.path) return;
+      void router.navigate(paths.auth.signIn.getHref(`${here.pathname}${here.search}`), { replace: true });
+    });
+    return () => setUnauthenticatedHandler(null);
+  }, [queryClient, router]);
+
+  return <RouterProvider router={router} />;
+}

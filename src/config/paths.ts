@@ -1,0 +1,36 @@
+/** Every client URL, written once. `path` is the router pattern, `getHref` builds a link. */
+
+function withQuery(path: string, query: Record<string, string | undefined>): string {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) if (value) params.set(key, value);
+  const qs = params.toString();
+  return qs ? `${path}?${qs}` : path;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  auth: {
+    signIn: { path: '/sign-in', getHref: (next?: string) => withQuery('/sign-in', { next }) },
+    signUp: { path: '/sign-up', getHref: () => '/sign-up' },
+    forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+    resetPassword: { path: '/reset-password', getHref: (token?: string) => withQuery('/reset-password', { token }) },
+    invite: { path: '/invite', getHref: (token?: string) => withQuery('/invite', { token }) },
+  },
+  app: {
+    root: { path: '/app', getHref: () => '/app' },
+    dashboard: { path: '', getHref: () => '/app' },
+    users: { path: 'users', getHref: () => '/app/users' },
+    settings: { path: 'settings', getHref: () => '/app/settings' },
+    devMail: { path: 'dev/mail', getHref: () => '/app/dev/mail' },
+  },
+} as const;
+
+/**
+ * Where to go after signing in. Only paths inside this app are accepted, so a crafted
+ * `?next=https://elsewhere` link cannot send a user off-site.
+ */
+export function safeNext(next: string | null | undefined): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return paths.app.root.getHref();
+  if (next.startsWith(paths.auth.signIn.path) || next.startsWith(paths.auth.signUp.path)) return paths.app.root.getHref();
+  return next;
+}
