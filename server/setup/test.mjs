@@ -1,0 +1,43 @@
+// `npm test`: the same set-up as `npm start` (with a cluster of its own), then every test.
+// Plain Node built-ins only until the dependencies are installed.
+import { spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { ensureChromium, ensureClientBuild, ensureDependencies, root, say, startCluster } from './lib.mjs';
+
+ensureDependencies();
+const chromium = ensureChromium();
+// A cluster and port of its own: tests never touch the `npm start` database and can run beside it.
+const pg = startCluster({ name: 'pg-test', port: Number(process.env.GUYLINE_TEST_PG_PORT ?? 54339) });
+
+let status = 1;
+try {
+  ensureClientBuild();
+  const report = path.join(root, '.data', 'vitest-report.json');
+  const env = {
+    ...process.env,
+    NODE_ENV: 'test',
+    DATABASE_URL: pg.url('guyline_test'),
+    JWT_SECRET: randomBytes(48).toString('base64url'),
+    LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
+    FAKES: 'on',
+    CHROMIUM_PATH: chromium,
+  };
+  const r = spawnSync(
+    path.join(root, 'node_modules', '.bin', 'vitest'),
+    ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...process.argv.slice(2)],
+    { cwd: root, env, stdio: 'inherit' },
+  );
+  status = r.status ?? 1;
+  if (fs.existsSync(report)) {
+    const j = JSON.parse(fs.readFileSync(report, 'utf8'));
+    // The plain closing line that CI reads.
+    console.log(`${j.numPassedTests} passed, ${j.numFailedTests} failed` + (j.numPendingTests ? `, ${j.numPendingTests} skipped` : ''));
+    if (j.numTotalTests === 0) status = status || 1;
+  }
+} finally {
+  if (pg.startedHere) pg.stop();
+}
+say(status === 0 ? 'All tests passed.' : 'Some tests failed.');
+process.exit(status);

@@ -1,0 +1,98 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import net from 'node:net';
+import pg from 'pg';
+import type { TestProject } from 'vitest/node';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    smtpUrl: string;
+    mailSinkUrl: string;
+    appUrl: string;
+  }
+}
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const port = (s.address() as net.AddressInfo).port;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+/** Drops and recreates the test database so every run starts from the migrations. */
+async function recreateDatabase(url: string) {
+  const name = new URL(url).pathname.slice(1);
+  const admin = new URL(url);
+  admin.pathname = '/postgres';
+  const client = new pg.Client({ connectionString: admin.toString() });
+  await client.connect();
+  await client.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+  await client.query(`CREATE DATABASE "${name}"`);
+  await client.end();
+}
+
+async function waitFor(url: string, child: ChildProcess, seconds: number) {
+  const until = Date.now() + seconds * 1000;
+  while (Date.now() < until) {
+    if (child.exitCode !== null) throw new Error(`The app server exited with code ${child.exitCode}`);
+    try {
+      const r = await fetch(url);
+      if (r.ok) return;
+    } catch {
+      /* not up yet */
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`The app server did not answer ${url} within ${seconds}s`);
+}
+
+export default async function setup(project: TestProject) {
+  const url = process.env.DATABASE_URL;
+  if (!url || !/guyline_test|_test\b/.test(url)) {
+    throw new Error('Run the tests with `npm test`: DATABASE_URL must name a test database (it is dropped).');
+  }
+  await recreateDatabase(url);
+
+  const { migrate } = await import('../server/cli');
+  const { seedDemo } = await import('../server/seed/demo');
+  const { sequelize } = await import('../server/db');
+  await migrate(() => {});
+  await seedDemo();
+  await sequelize.close();
+
+  const { startMailSink } = await import('../server/fakes/mailSink');
+  const sink = await startMailSink({ smtpPort: 0, httpPort: 0 });
+
+  // A real app server (built client, job workers) for the browser tests; its workers also send
+  // the mail that the API tests queue.
+  const port = await freePort();
+  const appUrl = `http://127.0.0.1:${port}`;
+  const child = spawn('node_modules/.bin/tsx', ['server/index.ts'], {
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: String(port),
+      APP_URL: appUrl,
+      SMTP_URL: sink.smtpUrl,
+      MAIL_SINK_URL: sink.httpUrl,
+      FAKES: 'on',
+      LOG_LEVEL: 'warn',
+    },
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
+  await waitFor(`${appUrl}/api/health`, child, 60);
+
+  project.provide('smtpUrl', sink.smtpUrl);
+  project.provide('mailSinkUrl', sink.httpUrl);
+  project.provide('appUrl', appUrl);
+
+  return async () => {
+    child.kill('SIGTERM');
+    await new Promise((r) => setTimeout(r, 300));
+    if (child.exitCode === null) child.kill('SIGKILL');
+    await sink.close();
+  };
+}

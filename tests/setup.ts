@@ -1,0 +1,15 @@
+import { afterAll, inject } from 'vitest';
+
+// Point every test file's server code at the mail sink and app that globalSetup started,
+// before any server module reads its settings.
+process.env.SMTP_URL = inject('smtpUrl');
+process.env.MAIL_SINK_URL = inject('mailSinkUrl');
+process.env.APP_URL = inject('appUrl');
+process.env.FAKES = 'on';
+
+afterAll(async () => {
+  const { stopBoss } = await import('../server/services/jobs');
+  const { sequelize } = await import('../server/db');
+  await stopBoss();
+  await sequelize.close();
+});
