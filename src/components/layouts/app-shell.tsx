@@ -135,7 +135,7 @@ export function AppShell({ navItems, organizationName, userName, roleLabel, onSi
         </section>
       </aside>
 
-      <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-4 py-6 sm:px-8 sm:py-8 focus:outline-none">
+      <main id="main" tabIndex={-1} className="relative min-w-0 flex-1 px-4 py-6 sm:px-8 sm:py-8 focus:outline-none">
         <div className="mx-auto max-w-5xl">{children}</div>
       </main>
     </div>

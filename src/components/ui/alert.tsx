@@ -20,11 +20,19 @@ export function Alert({ tone = 'info', title, children, className }: { tone?: Al
   );
 }
 
-/** The form-level message: always present as a live region, filled when there is something to say. */
-export function FormMessage({ message, tone = 'danger' }: { message: string | null | undefined; tone?: AlertTone }) {
+/**
+ * A live region that is always in the page (so screen readers notice what appears in it) but
+ * takes no room while empty.
+ */
+export function LiveRegion({ children, politeness = 'polite' }: { children?: ReactNode; politeness?: 'polite' | 'assertive' }) {
   return (
-    <div aria-live="assertive" aria-atomic="true">
-      {message ? <Alert tone={tone}>{message}</Alert> : null}
+    <div aria-live={politeness} aria-atomic="true" className={children ? undefined : 'sr-only'}>
+      {children}
     </div>
   );
+}
+
+/** The form-level message, announced as soon as it appears. */
+export function FormMessage({ message, tone = 'danger' }: { message: string | null | undefined; tone?: AlertTone }) {
+  return <LiveRegion politeness="assertive">{message ? <Alert tone={tone}>{message}</Alert> : null}</LiveRegion>;
 }

@@ -4,7 +4,7 @@ import { cn } from '@/lib/cn';
 /** A table that scrolls sideways on a phone instead of squeezing its columns. */
 export function Table({ caption, children, className }: { caption: ReactNode; children: ReactNode; className?: string }) {
   return (
-    <div className={cn('overflow-x-auto rounded-lg border border-canvas-200 bg-white', className)}>
+    <div className={cn('relative overflow-x-auto rounded-lg border border-canvas-200 bg-white', className)}>
       <table className="min-w-full divide-y divide-canvas-200 text-left text-sm">
         <caption className="sr-only">{caption}</caption>
         {children}

@@ -36,8 +36,8 @@ export default function InviteRoute() {
     );
   }
   if (invite.isError) {
-    const gone = isApiError(invite.error) && (invite.error.status === 404 || invite.error.code === 'invalid_token');
-    return <InvalidInvite text={gone ? 'This invitation has expired or has already been used.' : errorMessage(invite.error)} />;
+    const notFound = isApiError(invite.error) && invite.error.status === 404;
+    return <InvalidInvite text={notFound ? 'This invitation has expired or has already been used.' : errorMessage(invite.error)} />;
   }
 
   return (

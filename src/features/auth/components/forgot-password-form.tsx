@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { PasswordResetRequest } from '@shared/schemas/auth';
-import { Alert, FormMessage } from '@/components/ui/alert';
+import { Alert, FormMessage, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { useZodForm } from '@/lib/form';
@@ -21,13 +21,13 @@ export function ForgotPasswordForm() {
 
   return (
     <form ref={form.formRef} onSubmit={submit} noValidate className="space-y-4">
-      <div aria-live="polite">
+      <LiveRegion>
         {sentTo ? (
           <Alert tone="success" title={RESET_REQUESTED_MESSAGE}>
             Check your spam folder if nothing arrives in a few minutes.
           </Alert>
         ) : null}
-      </div>
+      </LiveRegion>
       <FormMessage message={form.formError} />
       <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" required {...form.field('email')} />
       <Button type="submit" isLoading={request.isPending}>

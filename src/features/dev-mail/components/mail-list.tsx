@@ -5,7 +5,7 @@ import { formatDateTime } from '@/lib/format';
 /** The caught mails; the selected one is marked with aria-current. */
 export function MailList({ mails, selectedId, onSelect }: { mails: readonly CaughtMail[]; selectedId: string | null; onSelect: (id: string) => void }) {
   return (
-    <ul className="divide-y divide-canvas-200 overflow-hidden rounded-lg border border-canvas-200 bg-white" aria-label="Caught mail">
+    <ul className="divide-y divide-canvas-200 self-start overflow-hidden rounded-lg border border-canvas-200 bg-white" aria-label="Caught mail">
       {mails.map((mail) => {
         const selected = mail.id === selectedId;
         return (

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { CURRENCIES, OrganizationSettings, type OrganizationResponse } from '@shared/schemas/organization';
-import { Alert, FormMessage } from '@/components/ui/alert';
+import { Alert, FormMessage, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/select';
 import { TextField } from '@/components/ui/text-field';
@@ -43,7 +43,7 @@ export function OrganizationForm({ organization, onSaved }: { organization: Orga
 
   return (
     <form ref={form.formRef} onSubmit={submit} noValidate className="space-y-6" onChange={() => setSaved(false)}>
-      <div aria-live="polite">{saved ? <Alert tone="success">Company settings saved.</Alert> : null}</div>
+      <LiveRegion>{saved ? <Alert tone="success">Company settings saved.</Alert> : null}</LiveRegion>
       <FormMessage message={form.formError} />
 
       <fieldset className="space-y-4">

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { InviteUserRequest } from '@shared/schemas/users';
 import { ROLE_LABELS, ROLES } from '@shared/types';
-import { Alert, FormMessage } from '@/components/ui/alert';
+import { Alert, FormMessage, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/select';
 import { TextField } from '@/components/ui/text-field';
@@ -29,7 +29,7 @@ export function InviteUserForm() {
 
   return (
     <form ref={form.formRef} onSubmit={submit} noValidate className="space-y-4" aria-label="Invite a user">
-      <div aria-live="polite">{sentTo ? <Alert tone="success">Invitation sent to {sentTo}.</Alert> : null}</div>
+      <LiveRegion>{sentTo ? <Alert tone="success">Invitation sent to {sentTo}.</Alert> : null}</LiveRegion>
       <FormMessage message={form.formError} />
       <div className="grid gap-4 sm:grid-cols-3">
         <TextField label="Name" autoComplete="off" required {...form.field('name')} />

@@ -52,11 +52,11 @@ export function UserRow({ user, isSelf }: { user: UserRowData; isSelf: boolean }
   const pendingRole = update.isPending && update.variables?.role;
   return (
     <Tr>
-      <Td className="font-semibold text-canvas-900">
+      <Td className="font-semibold whitespace-nowrap text-canvas-900">
         {user.name}
         {isSelf ? <span className="ml-1 font-normal text-canvas-600">(you)</span> : null}
       </Td>
-      <Td className="break-all">{user.email}</Td>
+      <Td className="whitespace-nowrap">{user.email}</Td>
       <Td className="min-w-40">
         {user.can.changeRole ? (
           <Select
