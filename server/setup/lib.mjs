@@ -170,6 +170,19 @@ export function startCluster({ name, port }) {
   };
 }
 
+/** Fails with a clear message when one of the ports is taken (another `npm start`, say). */
+export async function assertPortsFree(ports) {
+  const net = await import('node:net');
+  for (const [what, port] of Object.entries(ports)) {
+    const free = await new Promise((resolve) => {
+      const s = net.createServer();
+      s.once('error', () => resolve(false));
+      s.listen(port, '127.0.0.1', () => s.close(() => resolve(true)));
+    });
+    if (!free) fail(`Port ${port} (${what}) is already in use: is another Guyline running? Stop it, or choose another port.`);
+  }
+}
+
 /** A secret kept in the data folder so sessions survive a restart of `npm start`. */
 export function localSecret(name) {
   const file = path.join(root, '.data', `${name}.secret`);

@@ -1,6 +1,6 @@
 // `npm start`: sets everything up and runs the product. Plain Node built-ins only.
 import {
-  ensureClientBuild, ensureDependencies, localSecret, runTs, say, spawnTs, startCluster,
+  assertPortsFree, ensureClientBuild, ensureDependencies, localSecret, runTs, say, spawnTs, startCluster,
 } from './lib.mjs';
 
 ensureDependencies();
@@ -9,6 +9,8 @@ const pg = startCluster({ name: 'pg', port: pgPort });
 const port = Number(process.env.PORT ?? 3000);
 const smtpPort = Number(process.env.MAIL_SINK_SMTP_PORT ?? 2525);
 const sinkHttpPort = Number(process.env.MAIL_SINK_HTTP_PORT ?? 2526);
+
+await assertPortsFree({ 'the app, PORT': port, 'the mail sink, MAIL_SINK_SMTP_PORT': smtpPort, 'the mail sink, MAIL_SINK_HTTP_PORT': sinkHttpPort });
 
 const env = {
   ...process.env,
@@ -26,18 +28,29 @@ const env = {
 
 const children = [];
 let stopping = false;
-function stopAll(code = 0) {
+async function stopAll(code = 0) {
   if (stopping) return;
   stopping = true;
   say('Stopping...');
-  for (const c of children) if (c.exitCode === null) c.kill('SIGTERM');
-  setTimeout(() => {
-    if (pg.startedHere) pg.stop();
-    process.exit(code);
-  }, 800);
+  const running = children.filter((c) => c.exitCode === null && c.signalCode === null);
+  await Promise.race([
+    Promise.all(running.map((c) => new Promise((resolve) => { c.once('exit', resolve); c.kill('SIGTERM'); }))),
+    new Promise((resolve) => setTimeout(resolve, 5000)),
+  ]);
+  for (const c of running) if (c.exitCode === null && c.signalCode === null) c.kill('SIGKILL');
+  if (pg.startedHere) pg.stop();
+  process.exit(code);
 }
-process.on('SIGINT', () => stopAll(0));
-process.on('SIGTERM', () => stopAll(0));
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => stopAll(0));
+// When npm itself is killed without passing the signal on, stop too instead of living on as an orphan.
+const parent = process.ppid;
+setInterval(() => {
+  try {
+    process.kill(parent, 0);
+  } catch {
+    stopAll(0);
+  }
+}, 1000).unref();
 
 try {
   runTs('server/cli.ts', ['setup'], env);
