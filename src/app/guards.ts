@@ -24,7 +24,8 @@ export async function requireArea(queryClient: QueryClient, request: Request, ar
 
 /** For sign-in and sign-up: a signed-in visitor goes straight on into the app. */
 export async function redirectIfSignedIn(queryClient: QueryClient, request: Request): Promise<null> {
-  const me = await queryClient.ensureQueryData(meQueryOptions());
+  // If the server cannot say who is signed in, show the form anyway: signing in reports the trouble.
+  const me = await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);
   if (me) throw redirect(safeNext(new URL(request.url).searchParams.get('next')));
   return null;
 }

@@ -41,7 +41,7 @@ export function ResetPasswordForm({ token, onSuccess }: { token: string; onSucce
         hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
         {...form.field('password')}
       />
-      <TextField label="Repeat new password" type="password" autoComplete="new-password" required {...form.field('repeatPassword')} />
+      <TextField label="Confirm password" type="password" autoComplete="new-password" required {...form.field('repeatPassword')} />
       <Button type="submit" isLoading={confirm.isPending}>
         {confirm.isPending ? 'Saving…' : 'Set new password'}
       </Button>

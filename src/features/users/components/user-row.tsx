@@ -5,7 +5,7 @@ import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Select } from '@/components/ui/select';
-import { Td, Tr } from '@/components/ui/table';
+import { Td, Th, Tr } from '@/components/ui/table';
 import { errorMessage } from '@/lib/api';
 import { formatDateTime } from '@/lib/format';
 import { useResendInvite } from '../api/resend-invite';
@@ -52,10 +52,10 @@ export function UserRow({ user, isSelf }: { user: UserRowData; isSelf: boolean }
   const pendingRole = update.isPending && update.variables?.role;
   return (
     <Tr>
-      <Td className="font-semibold whitespace-nowrap text-canvas-900">
+      <Th scope="row" className="py-3 text-canvas-900">
         {user.name}
         {isSelf ? <span className="ml-1 font-normal text-canvas-600">(you)</span> : null}
-      </Td>
+      </Th>
       <Td className="whitespace-nowrap">{user.email}</Td>
       <Td className="min-w-40">
         {user.can.changeRole ? (
@@ -75,8 +75,8 @@ export function UserRow({ user, isSelf }: { user: UserRowData; isSelf: boolean }
         <Badge tone={STATUS[user.status].tone}>{STATUS[user.status].label}</Badge>
       </Td>
       <Td className="whitespace-nowrap text-canvas-700">{user.lastSignInAt ? formatDateTime(user.lastSignInAt) : 'Never'}</Td>
-      <Td>
-        <div className="flex flex-wrap items-center gap-2">
+      <Td className="min-w-56">
+        <div className="flex flex-wrap items-center gap-2 whitespace-nowrap">
           {user.can.resendInvite ? (
             <Button
               size="sm"
