@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ROLES, USER_STATUSES } from '../types';
 import { Email, PersonName } from './auth';
+import { ListQuery } from './common';
 
 export const Role = z.enum(ROLES, { error: 'Choose a role: owner, office, crew or bookkeeper.' });
 
@@ -18,11 +19,7 @@ export const UpdateUserRequest = z
   });
 export type UpdateUserRequest = z.infer<typeof UpdateUserRequest>;
 
-export const ListQuery = z.object({
-  page: z.coerce.number({ error: 'Page must be a number.' }).int().min(1, 'Pages start at 1.').default(1),
-  pageSize: z.coerce.number({ error: 'Page size must be a number.' }).int().min(1).max(200, 'At most 200 a page.').default(50),
-});
-export type ListQuery = z.infer<typeof ListQuery>;
+export { ListQuery };
 
 export const UserRow = z.object({
   id: z.string(),
