@@ -1,4 +1,4 @@
-import { useEffect, useId, useState, type ReactNode } from 'react';
+import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { NavLink, useLocation } from 'react-router';
 import { Button } from '@/components/ui/button';
 import { Logo } from '@/components/ui/logo';
@@ -32,7 +32,15 @@ export function AppShell({ navItems, organizationName, userName, roleLabel, onSi
   const location = useLocation();
   const panelId = useId();
 
-  useEffect(() => setMenuOpen(false), [location.pathname]);
+  const mainRef = useRef<HTMLElement>(null);
+  const firstRender = useRef(true);
+
+  useEffect(() => {
+    setMenuOpen(false);
+    // After moving to another page, start the keyboard and the screen reader at its content.
+    if (firstRender.current) firstRender.current = false;
+    else mainRef.current?.focus({ preventScroll: true });
+  }, [location.pathname]);
 
   useEffect(() => {
     if (!menuOpen) return;
@@ -135,7 +143,7 @@ export function AppShell({ navItems, organizationName, userName, roleLabel, onSi
         </section>
       </aside>
 
-      <main id="main" tabIndex={-1} className="relative min-w-0 flex-1 px-4 py-6 sm:px-8 sm:py-8 focus:outline-none">
+      <main ref={mainRef} id="main" tabIndex={-1} className="relative min-w-0 flex-1 px-4 py-6 sm:px-8 sm:py-8 focus:outline-none">
         <div className="mx-auto max-w-5xl">{children}</div>
       </main>
     </div>
