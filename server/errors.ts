@@ -5,6 +5,8 @@ export class HttpError extends Error {
     public code: string,
     message: string,
     public fields?: Record<string, string>,
+    /** More top-level members of the error body, beside `error` (e.g. `shortfalls`). */
+    public extra?: Record<string, unknown>,
   ) {
     super(message);
   }

@@ -7,7 +7,9 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   if (err instanceof HttpError) {
     const retry = (err as HttpError & { retryAfterSeconds?: number }).retryAfterSeconds;
     if (retry) res.setHeader('Retry-After', String(retry));
-    return res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    return res
+      .status(err.status)
+      .json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) }, ...(err.extra ?? {}) });
   }
   const e = err as { type?: string; status?: number; statusCode?: number };
   // body-parser's own errors

@@ -14,6 +14,9 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare email: CreationOptional<string>;
   declare currency: CreationOptional<string>;
   declare timeZone: CreationOptional<string>;
+  /** The company's own numbers (CompanyRules in shared/schemas/rules.ts), read through `rulesOf()`. */
+  declare rules: CreationOptional<Record<string, unknown>>;
+  declare nextBookingNumber: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -32,6 +35,8 @@ Organization.init(
     email: { type: DataTypes.STRING(254), allowNull: false, defaultValue: '' },
     currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'USD' },
     timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'America/Chicago' },
+    rules: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    nextBookingNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1001 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

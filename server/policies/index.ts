@@ -2,10 +2,13 @@ import type { Area } from '../../shared/types';
 import { env } from '../env';
 import { forbidden, notFound } from '../errors';
 import type { User } from '../models';
+import { bookingPolicy } from './booking';
+import { customerPolicy } from './customer';
+import { itemPolicy } from './item';
 import { organizationPolicy } from './organization';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */
@@ -37,7 +40,7 @@ export function sameOrganization<T extends { organizationId: string } | null>(ac
 
 /** The parts of the app a user may open; the client builds its navigation from this list. */
 export function areasFor(user: User): Area[] {
-  const areas: Area[] = ['dashboard'];
+  const areas: Area[] = ['dashboard', 'bookings', 'customers', 'catalog'];
   if (userPolicy.list(user)) areas.push('users');
   if (user.role === 'owner') areas.push('settings');
   if (env.FAKES === 'on') areas.push('devInbox');

@@ -1,6 +1,10 @@
 import { Router } from 'express';
 import { env } from '../env';
 import { authRouter } from './auth';
+import { bookingsRouter } from './bookings';
+import { customersRouter } from './customers';
+import { itemsRouter } from './items';
+import { planningRouter } from './planning';
 import { devRouter } from './dev';
 import { organizationRouter } from './organization';
 import { usersRouter } from './users';
@@ -10,7 +14,11 @@ export function apiRouter() {
   api.get('/health', (_req, res) => res.json({ ok: true }));
   api.use('/auth', authRouter);
   api.use('/users', usersRouter);
+  api.use('/', planningRouter);
   api.use('/organization', organizationRouter);
+  api.use('/items', itemsRouter);
+  api.use('/customers', customersRouter);
+  api.use('/bookings', bookingsRouter);
   if (env.FAKES === 'on') api.use('/dev', devRouter);
   return api;
 }

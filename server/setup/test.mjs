@@ -13,7 +13,8 @@ const pg = startCluster({ name: 'pg-test', port: Number(process.env.GUYLINE_TEST
 
 let status = 1;
 try {
-  ensureClientBuild();
+  // SKIP_CLIENT_BUILD=1 reuses the last build while iterating on server code (never in CI).
+  if (process.env.SKIP_CLIENT_BUILD !== '1' || process.env.CI) ensureClientBuild();
   const report = path.join(root, '.data', 'vitest-report.json');
   const env = {
     ...process.env,

@@ -1,0 +1,27 @@
+import type { NextFunction, Request, Response } from 'express';
+import multer from 'multer';
+import { HttpError } from '../errors';
+
+/**
+ * One file from a multipart form (field `file`), kept in memory up to maxBytes. Too large -> 413,
+ * not multipart or no file -> 415/400, all in the API's error shape.
+ */
+export function singleFile(maxBytes: number) {
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single('file');
+  return (req: Request, res: Response, next: NextFunction) => {
+    if (!req.is('multipart/form-data')) {
+      return next(new HttpError(415, 'unsupported_media_type', 'Send the file as multipart/form-data in a field named "file".'));
+    }
+    upload(req, res, (err: unknown) => {
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') {
+          return next(new HttpError(413, 'too_large', `The file is too large: at most ${Math.round(maxBytes / 1024 / 1024 * 10) / 10} MB.`, { file: 'Too large.' }));
+        }
+        return next(new HttpError(400, 'validation', 'Send one file in a field named "file".', { file: err.message }));
+      }
+      if (err) return next(err);
+      if (!req.file) return next(new HttpError(400, 'validation', 'Choose a file to upload.', { file: 'Choose a file.' }));
+      next();
+    });
+  };
+}

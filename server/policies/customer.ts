@@ -1,0 +1,9 @@
+import type { Customer, User } from '../models';
+
+export const customerPolicy = {
+  list: (_actor: User) => true,
+  read: (actor: User, customer: Customer) => actor.organizationId === customer.organizationId,
+  create: (actor: User) => actor.role === 'owner' || actor.role === 'office',
+  update: (actor: User, customer: Customer) =>
+    actor.organizationId === customer.organizationId && (actor.role === 'owner' || actor.role === 'office'),
+};
