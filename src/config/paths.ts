@@ -22,6 +22,16 @@ export const paths = {
     users: { path: 'users', getHref: () => '/app/users' },
     settings: { path: 'settings', getHref: () => '/app/settings' },
     devMail: { path: 'dev/mail', getHref: () => '/app/dev/mail' },
+    catalog: { path: 'catalog', getHref: () => '/app/catalog' },
+    catalogNew: { path: 'catalog/new', getHref: () => '/app/catalog/new' },
+    catalogItem: { path: 'catalog/:id', getHref: (id: string, month?: string) => withQuery(`/app/catalog/${encodeURIComponent(id)}`, { month }) },
+    customers: { path: 'customers', getHref: () => '/app/customers' },
+    customerNew: { path: 'customers/new', getHref: () => '/app/customers/new' },
+    customer: { path: 'customers/:id', getHref: (id: string) => `/app/customers/${encodeURIComponent(id)}` },
+    bookings: { path: 'bookings', getHref: () => '/app/bookings' },
+    bookingsCalendar: { path: 'bookings/calendar', getHref: (month?: string) => withQuery('/app/bookings/calendar', { month }) },
+    bookingNew: { path: 'bookings/new', getHref: (customerId?: string) => withQuery('/app/bookings/new', { customerId }) },
+    booking: { path: 'bookings/:id', getHref: (id: string) => `/app/bookings/${encodeURIComponent(id)}` },
   },
 } as const;
 

@@ -6,13 +6,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: Record<string, string>;
+  /** The whole error body: some errors carry more beside `error` (a 409's shortfalls, a 422's import report). */
+  readonly body: unknown;
 
-  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}) {
+  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}, body: unknown = null) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.body = body;
   }
 }
 
@@ -72,6 +75,17 @@ function buildUrl(path: string, query?: Query): string {
   return qs ? `${path}?${qs}` : path;
 }
 
+function errorFromBody(status: number, body: Partial<ApiErrorBody> | null): ApiError {
+  const error = body?.error;
+  if (error && typeof error.message === 'string') {
+    return new ApiError(status, error.code ?? 'error', error.message, error.fields ?? {}, body);
+  }
+  if (status === 429) return new ApiError(429, 'rate_limited', 'Too many attempts. Wait a minute and try again.');
+  if (status === 413) return new ApiError(413, 'too_large', 'That file is too large.');
+  if (status >= 500) return new ApiError(status, 'server', 'The server could not finish that. Try again in a moment.');
+  return new ApiError(status, 'error', 'That did not work. Try again in a moment.');
+}
+
 async function toApiError(response: Response): Promise<ApiError> {
   let body: Partial<ApiErrorBody> | null = null;
   try {
@@ -79,13 +93,7 @@ async function toApiError(response: Response): Promise<ApiError> {
   } catch {
     body = null;
   }
-  const error = body?.error;
-  if (error && typeof error.message === 'string') {
-    return new ApiError(response.status, error.code ?? 'error', error.message, error.fields ?? {});
-  }
-  if (response.status === 429) return new ApiError(429, 'rate_limited', 'Too many attempts. Wait a minute and try again.');
-  if (response.status >= 500) return new ApiError(response.status, 'server', 'The server could not finish that. Try again in a moment.');
-  return new ApiError(response.status, 'error', 'That did not work. Try again in a moment.');
+  return errorFromBody(response.status, body);
 }
 
 async function request<T>(method: string, path: string, options: RequestOptions = {}): Promise<T> {
@@ -133,3 +141,51 @@ export const api = {
   patch: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>('PATCH', path, { ...options, body }),
   delete: <T>(path: string, options?: RequestOptions) => request<T>('DELETE', path, options),
 };
+
+export interface UploadOptions {
+  /** The multipart field name; `file` unless the endpoint says otherwise. */
+  field?: string;
+  query?: Query;
+  /** Share sent so far, 0 to 1. */
+  onProgress?: (fraction: number) => void;
+  signal?: AbortSignal;
+}
+
+/**
+ * Sends one file as multipart/form-data with the same cookies, CSRF header and error handling as
+ * `api`. It uses XMLHttpRequest because fetch cannot report upload progress.
+ */
+export function uploadFile<T>(method: 'POST' | 'PUT', path: string, file: File, options: UploadOptions = {}): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open(method, buildUrl(path, options.query));
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('Accept', 'application/json');
+    const csrf = readCookie(CSRF_COOKIE);
+    if (csrf) xhr.setRequestHeader(CSRF_HEADER, csrf);
+    xhr.upload.onprogress = (event) => {
+      if (event.lengthComputable) options.onProgress?.(event.loaded / event.total);
+    };
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'Could not reach Guyline. Check your connection and try again.'));
+    xhr.onabort = () => reject(new DOMException('The upload was stopped.', 'AbortError'));
+    xhr.onload = () => {
+      let body: unknown = null;
+      try {
+        body = xhr.responseText ? JSON.parse(xhr.responseText) : null;
+      } catch {
+        body = null;
+      }
+      if (xhr.status >= 200 && xhr.status < 300) {
+        options.onProgress?.(1);
+        resolve(body as T);
+        return;
+      }
+      if (xhr.status === 401) onUnauthenticated?.();
+      reject(errorFromBody(xhr.status, body as Partial<ApiErrorBody> | null));
+    };
+    options.signal?.addEventListener('abort', () => xhr.abort());
+    const form = new FormData();
+    form.append(options.field ?? 'file', file, file.name);
+    xhr.send(form);
+  });
+}

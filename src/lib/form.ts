@@ -14,11 +14,20 @@ export function zodFieldErrors(error: z.ZodError): FieldErrors {
   return out;
 }
 
+export interface ZodFormOptions<V> {
+  /**
+   * Turns the typed strings into what the schema takes (dollars to cents, "" to null...). Its
+   * `errors` (by the same field names) are for text that could not be read at all; they are
+   * shown together with the schema's own messages.
+   */
+  toInput?: (values: V) => { input: unknown; errors?: FieldErrors };
+}
+
 /**
  * Form state for a zod schema: string values, per-field messages, a form-level message.
  * Values are never cleared on an error; the first invalid field gets focus.
  */
-export function useZodForm<S extends z.ZodType, V extends Record<string, string>>(schema: S, initial: V) {
+export function useZodForm<S extends z.ZodType, V extends Record<string, string>>(schema: S, initial: V, options: ZodFormOptions<V> = {}) {
   const [values, setValues] = useState<V>(initial);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
@@ -52,13 +61,15 @@ export function useZodForm<S extends z.ZodType, V extends Record<string, string>
 
   /** Parse the current values; on failure show the messages and return null. */
   const parse = (): z.output<S> | null => {
-    const result = schema.safeParse(values);
-    if (result.success) {
+    const converted = options.toInput ? options.toInput(values) : { input: values, errors: {} };
+    const unreadable = converted.errors ?? {};
+    const result = schema.safeParse(converted.input);
+    if (result.success && Object.keys(unreadable).length === 0) {
       setErrors({});
       setFormError(null);
       return result.data;
     }
-    setErrors(zodFieldErrors(result.error));
+    setErrors({ ...(result.success ? {} : zodFieldErrors(result.error)), ...unreadable });
     setFormError('Check the highlighted fields.');
     focusFirstInvalid();
     return null;

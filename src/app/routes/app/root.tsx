@@ -14,6 +14,9 @@ import { requireMe } from '../../guards';
 /** The navigation, in order; an entry shows only when the server lists its area. */
 const NAVIGATION: ReadonlyArray<{ area: Area } & ShellNavItem> = [
   { area: 'dashboard', label: 'Home', to: paths.app.root.getHref(), end: true },
+  { area: 'bookings', label: 'Bookings', to: paths.app.bookings.getHref() },
+  { area: 'customers', label: 'Customers', to: paths.app.customers.getHref() },
+  { area: 'catalog', label: 'Catalog', to: paths.app.catalog.getHref() },
   { area: 'users', label: 'Users', to: paths.app.users.getHref() },
   { area: 'settings', label: 'Company settings', to: paths.app.settings.getHref() },
   { area: 'devInbox', label: 'Mail inbox', to: paths.app.devMail.getHref() },
