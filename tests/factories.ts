@@ -33,3 +33,34 @@ export async function buildCompany() {
   );
   return { organization, owner, office, crew, bookkeeper };
 }
+
+import { ItemInput, type ItemInput as ItemInputT } from '../shared/schemas/items';
+import { Customer, Item } from '../server/models';
+
+export async function buildItem(organizationId: string, attrs: Partial<ItemInputT> = {}) {
+  const values = ItemInput.parse({ name: 'White folding chair', kind: 'chair', quantityOwned: 10, rentalPriceCents: 200, ...attrs });
+  return Item.create({ ...values, organizationId });
+}
+
+export async function buildCustomer(organizationId: string, attrs: Partial<{ name: string; email: string; phone: string; taxExempt: boolean }> = {}) {
+  return Customer.create({ organizationId, name: attrs.name ?? 'Test Customer', email: attrs.email ?? '', phone: attrs.phone ?? '', taxExempt: attrs.taxExempt ?? false });
+}
+
+/** A booking request body for POST /api/bookings: an event on `date` (UTC), delivered the day before. */
+export function bookingBody(customerId: string, date: string, lines: { itemId: string | null; quantity: number; unitPriceCents?: number; description?: string; taxable?: boolean; kind?: 'rental' | 'fee' }[], extra: Record<string, unknown> = {}) {
+  const d = (offsetDays: number, time: string) => {
+    const base = new Date(`${date}T${time}:00Z`);
+    return new Date(base.getTime() + offsetDays * 86_400_000).toISOString();
+  };
+  return {
+    customerId,
+    eventStart: d(0, '18:00'),
+    eventEnd: d(0, '23:00'),
+    deliveryStart: d(-1, '14:00'),
+    deliveryEnd: d(-1, '18:00'),
+    pickupStart: d(1, '14:00'),
+    pickupEnd: d(1, '18:00'),
+    lines: lines.map((l) => ({ description: l.description ?? 'Line', unitPriceCents: l.unitPriceCents ?? 1000, taxable: l.taxable ?? true, kind: l.kind ?? 'rental', itemId: l.itemId, quantity: l.quantity })),
+    ...extra,
+  };
+}

@@ -83,9 +83,9 @@ const BookingFields = z.object({
 });
 
 function checkOrder(v: z.output<typeof BookingFields>, ctx: z.RefinementCtx) {
-  const t = (s: string) => new Date(s).getTime();
+  const t = (s: unknown) => (typeof s === 'string' ? new Date(s).getTime() : NaN);
   const rule = (a: keyof typeof v, b: keyof typeof v, path: string, message: string) => {
-    if (t(v[b] as string) < t(v[a] as string)) ctx.addIssue({ code: 'custom', path: [path], message });
+    if (t(v[b]) < t(v[a])) ctx.addIssue({ code: 'custom', path: [path], message });
   };
   rule('eventStart', 'eventEnd', 'eventEnd', 'The event cannot end before it starts.');
   rule('deliveryStart', 'deliveryEnd', 'deliveryEnd', 'The delivery window cannot end before it starts.');
@@ -95,7 +95,8 @@ function checkOrder(v: z.output<typeof BookingFields>, ctx: z.RefinementCtx) {
   rule('eventEnd', 'pickupEnd', 'pickupEnd', 'Pickup must end after the event does.');
 }
 
-export const BookingInput = BookingFields.superRefine(checkOrder);
+// Runs even when other fields failed, so one answer names every problem.
+export const BookingInput = BookingFields.superRefine(checkOrder, { when: () => true });
 export type BookingInput = z.input<typeof BookingInput>;
 export type BookingValues = z.output<typeof BookingInput>;
 

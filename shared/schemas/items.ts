@@ -62,10 +62,11 @@ export const ItemInput = z
       need('seats', 'Enter how many guests the table seats.');
     }
     if (v.kind === 'service') need('serviceType', 'Choose delivery, set-up, take-down or other.');
-    if (v.kind === 'tent' && v.widthFt && v.lengthFt && v.widthFt > v.lengthFt) {
+    if (v.kind === 'tent' && typeof v.widthFt === 'number' && typeof v.lengthFt === 'number' && v.widthFt > v.lengthFt) {
       ctx.addIssue({ code: 'custom', path: ['widthFt'], message: 'Give the shorter side as the width.' });
     }
-  });
+    // Run even when other fields failed, so one pass names every missing measurement.
+  }, { when: () => true });
 export type ItemInput = z.input<typeof ItemInput>;
 export type ItemValues = z.output<typeof ItemInput>;
 
