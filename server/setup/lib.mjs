@@ -73,17 +73,27 @@ export function findPostgres() {
   return found[0];
 }
 
-/** Installs Debian's chromium for the browser tests when missing and root. */
-export function ensureChromium() {
-  if (fs.existsSync('/usr/bin/chromium')) return '/usr/bin/chromium';
-  if (!isRoot) fail('Browser tests need Chromium at /usr/bin/chromium: sudo apt-get install -y chromium');
-  say('Chromium not found: installing Debian\'s chromium package...');
+/**
+ * Makes sure Debian packages are installed (checked by the program each provides), installing the
+ * missing ones with apt when root; otherwise stops with the command to run.
+ */
+export function ensureDebianPackages(packages) {
+  const missing = Object.entries(packages).filter(([, program]) => !fs.existsSync(program)).map(([pkg]) => pkg);
+  if (missing.length === 0) return;
+  if (!isRoot) fail(`The tests need Debian packages: sudo apt-get install -y ${missing.join(' ')}`);
+  say(`Installing Debian packages: ${missing.join(', ')}...`);
   run('apt-get', ['update', '-qq'], { stdio: ['ignore', 'inherit', 'inherit'] });
-  const status = run('apt-get', ['install', '-y', '-qq', 'chromium'], {
+  const status = run('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...missing], {
     stdio: ['ignore', 'inherit', 'inherit'],
     env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
   });
-  if (status !== 0 || !fs.existsSync('/usr/bin/chromium')) fail('apt-get could not install chromium.');
+  const still = Object.entries(packages).filter(([, program]) => !fs.existsSync(program)).map(([pkg]) => pkg);
+  if (status !== 0 || still.length) fail(`apt-get could not install ${still.join(', ')}.`);
+}
+
+/** Debian's chromium for the browser tests. */
+export function ensureChromium() {
+  ensureDebianPackages({ chromium: '/usr/bin/chromium' });
   return '/usr/bin/chromium';
 }
 

@@ -4,10 +4,12 @@ import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { ensureChromium, ensureClientBuild, ensureDependencies, root, say, startCluster } from './lib.mjs';
+import { ensureChromium, ensureClientBuild, ensureDebianPackages, ensureDependencies, root, say, startCluster } from './lib.mjs';
 
 ensureDependencies();
 const chromium = ensureChromium();
+// Tools from outside the project that the document tests check PDFs with.
+ensureDebianPackages({ qpdf: '/usr/bin/qpdf', 'poppler-utils': '/usr/bin/pdffonts' });
 // A cluster and port of its own: tests never touch the `npm start` database and can run beside it.
 const pg = startCluster({ name: 'pg-test', port: Number(process.env.GUYLINE_TEST_PG_PORT ?? 54339) });
 
