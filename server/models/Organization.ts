@@ -17,6 +17,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   /** The company's own numbers (CompanyRules in shared/schemas/rules.ts), read through `rulesOf()`. */
   declare rules: CreationOptional<Record<string, unknown>>;
   declare nextBookingNumber: CreationOptional<number>;
+  declare nextInvoiceNumber: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -37,6 +38,7 @@ Organization.init(
     timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'America/Chicago' },
     rules: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     nextBookingNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1001 },
+    nextInvoiceNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

@@ -2,7 +2,11 @@ import { AuditLog } from './AuditLog';
 import { AuthToken } from './AuthToken';
 import { Booking } from './Booking';
 import { BookingLine } from './BookingLine';
+import { CompanyClause } from './CompanyClause';
 import { Customer } from './Customer';
+import { Document } from './Document';
+import { DocumentSend } from './DocumentSend';
+import { DocumentTemplate } from './DocumentTemplate';
 import { Item } from './Item';
 import { Organization } from './Organization';
 import { Session } from './Session';
@@ -19,4 +23,10 @@ Booking.hasMany(BookingLine, { foreignKey: 'bookingId', as: 'lines' });
 BookingLine.belongsTo(Booking, { foreignKey: 'bookingId', as: 'booking' });
 BookingLine.belongsTo(Item, { foreignKey: 'itemId', as: 'item' });
 
-export { AuditLog, AuthToken, Booking, BookingLine, Customer, Item, Organization, Session, Shortfall, StoredFile, User };
+Document.belongsTo(Booking, { foreignKey: 'bookingId', as: 'booking' });
+Document.hasMany(DocumentSend, { foreignKey: 'documentId', as: 'sends' });
+
+export {
+  AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item,
+  Organization, Session, Shortfall, StoredFile, User,
+};
