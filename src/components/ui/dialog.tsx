@@ -1,18 +1,22 @@
 import { useEffect, useId, useRef, type ReactNode } from 'react';
+import { createPortal } from 'react-dom';
 
 interface DialogProps {
   open: boolean;
   title: string;
   children: ReactNode;
   /** The buttons; the dialog does not add its own. */
-  footer: ReactNode;
+  footer?: ReactNode;
   onClose: () => void;
   /** While true, Escape does not close it (a request is running). */
   busy?: boolean;
   wide?: boolean;
 }
 
-/** A modal on the native <dialog>: focus is trapped and Escape closes it. */
+/**
+ * A modal on the native <dialog>: focus is trapped and Escape closes it. It is put at the end of
+ * <body>, so a form inside it never sits inside the page's own form.
+ */
 export function Dialog({ open, title, children, footer, onClose, busy, wide }: DialogProps) {
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
@@ -24,7 +28,7 @@ export function Dialog({ open, title, children, footer, onClose, busy, wide }: D
     if (!open && dialog.open) dialog.close();
   }, [open]);
 
-  return (
+  return createPortal(
     <dialog
       ref={ref}
       aria-labelledby={titleId}
@@ -38,7 +42,8 @@ export function Dialog({ open, title, children, footer, onClose, busy, wide }: D
         {title}
       </h2>
       {open ? <div className="mt-3 text-canvas-800">{children}</div> : null}
-      <div className="mt-6 flex flex-wrap justify-end gap-2">{footer}</div>
-    </dialog>
+      {footer ? <div className="mt-6 flex flex-wrap justify-end gap-2">{footer}</div> : null}
+    </dialog>,
+    document.body,
   );
 }

@@ -1,7 +1,7 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router';
 import { Alert } from '@/components/ui/alert';
-import { Card } from '@/components/ui/card';
+import { Card, SectionCard } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { PageSpinner } from '@/components/ui/spinner';
 import { errorMessage } from '@/lib/api';
@@ -9,18 +9,22 @@ import { meQueryOptions } from '@/features/auth/api/get-me';
 import { organizationQueryOptions, useOrganization } from '@/features/organization/api/get-organization';
 import { OrganizationDetails } from '@/features/organization/components/organization-details';
 import { OrganizationForm } from '@/features/organization/components/organization-form';
+import { rulesQueryOptions, useRules } from '@/features/organization/api/get-rules';
+import { RulesForm } from '@/features/organization/components/rules-form';
 import { requireMe } from '../../guards';
 
 // Any signed-in role may read the company details; the server says who may change them.
 export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   await requireMe(queryClient, request);
   void queryClient.prefetchQuery(organizationQueryOptions());
+  void queryClient.prefetchQuery(rulesQueryOptions());
   return null;
 };
 
 export default function SettingsRoute() {
   const queryClient = useQueryClient();
   const organization = useOrganization();
+  const rules = useRules();
 
   return (
     <>
@@ -45,6 +49,21 @@ export default function SettingsRoute() {
           <OrganizationDetails organization={organization.data} />
         </Card>
       )}
+      <SectionCard
+        className="mt-6"
+        title="Pricing and planning rules"
+        description="Tax, deposit, damage waiver, delivery fees, turnaround, permit thresholds and tent sizing: the numbers quotes and the planner use."
+      >
+        {rules.isPending ? (
+          <PageSpinner label="Loading the rules…" />
+        ) : rules.isError ? (
+          <Alert tone="danger" title="The rules could not be loaded.">
+            {errorMessage(rules.error)}
+          </Alert>
+        ) : (
+          <RulesForm rules={rules.data} />
+        )}
+      </SectionCard>
     </>
   );
 }

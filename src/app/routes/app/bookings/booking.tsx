@@ -1,6 +1,64 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { Alert } from '@/components/ui/alert';
 import { PageHeader } from '@/components/ui/page-header';
+import { PageSpinner } from '@/components/ui/spinner';
+import { TextLink } from '@/components/ui/text-link';
+import { paths } from '@/config/paths';
+import { errorMessage, isApiError } from '@/lib/api';
+import { formatZoned } from '@/lib/zoned-time';
+import { bookingQueryOptions, useBooking } from '@/features/bookings/api/get-booking';
+import { BookingEditor } from '@/features/bookings/components/editor/booking-editor';
+import { StatusBadge } from '@/features/bookings/components/status';
+import { useEditorData } from './editor-data';
+import { requireArea } from '../../../guards';
 
-// The booking editor lands in the next commit.
-export default function BookingEditorPlaceholder() {
-  return <PageHeader title="Booking" description="The booking editor is being built." />;
+export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
+  await requireArea(queryClient, request, 'bookings');
+  void queryClient.prefetchQuery(bookingQueryOptions(params.id ?? ''));
+  return null;
+};
+
+export default function BookingRoute() {
+  const { id = '' } = useParams();
+  const booking = useBooking(id);
+  const data = useEditorData();
+
+  if (booking.isPending) return <PageSpinner label="Loading the booking…" />;
+  if (booking.isError) {
+    if (isApiError(booking.error) && booking.error.status === 404) throw booking.error;
+    return (
+      <Alert tone="danger" title="The booking could not be loaded.">
+        {errorMessage(booking.error)}
+      </Alert>
+    );
+  }
+  const b = booking.data;
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <TextLink to={paths.app.bookings.getHref()}>Back to bookings</TextLink>
+      </p>
+      <PageHeader
+        title={`Booking ${b.reference}`}
+        description={
+          <span className="flex flex-wrap items-center gap-2">
+            <StatusBadge status={b.status} />
+            <span>
+              {b.customer.name} · {formatZoned(b.eventStart, data.timeZone)}
+            </span>
+          </span>
+        }
+      />
+      {data.error ? (
+        <Alert tone="danger" title="The booking editor could not load.">
+          {errorMessage(data.error)}
+        </Alert>
+      ) : !data.ready ? (
+        <PageSpinner label="Loading…" />
+      ) : (
+        <BookingEditor booking={b} items={data.items} rules={data.rules} timeZone={data.timeZone} currency={data.currency} seePrices={b.can.seePrices} />
+      )}
+    </>
+  );
 }
