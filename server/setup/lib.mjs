@@ -131,7 +131,8 @@ function chownToPostgres(p) {
  * Creates (first run) and starts a PostgreSQL cluster on 127.0.0.1:port in <dataRoot>/<name>.
  * Returns { url(dbName), stop(), startedHere }.
  */
-export function startCluster({ name, port }) {
+export function startCluster({ name, port: wantedPort, anyPort = false }) {
+  let port = wantedPort;
   const bin = findPostgres();
   const base = dataRoot();
   const dir = path.join(base, name);
@@ -156,9 +157,12 @@ export function startCluster({ name, port }) {
   let startedHere = false;
   if (status.status === 0) {
     const pid = fs.readFileSync(path.join(dir, 'postmaster.pid'), 'utf8').split('\n');
+    if (anyPort) port = Number(pid[3]);
     if (Number(pid[3]) !== port) fail(`The cluster in ${dir} already runs on port ${pid[3]}, not ${port}; stop it first.`);
     say(`PostgreSQL is already running on 127.0.0.1:${port}; reusing it.`);
   } else {
+    // Another clone's tests may hold the usual port: then take any free one.
+    if (anyPort && !portIsFree(port)) port = freePortSync();
     const r = asPostgres(pgCtl, [
       'start', '-D', dir, '-l', log, '-w', '-t', '60',
       '-o', `-p ${port} -k ${socketDir} -c listen_addresses=127.0.0.1 -c max_connections=200`,
@@ -178,6 +182,16 @@ export function startCluster({ name, port }) {
       say('PostgreSQL stopped.');
     },
   };
+}
+
+function portIsFree(port) {
+  const r = spawnSync(process.execPath, ['-e', `require('net').createServer().once('error',()=>process.exit(1)).listen(${port},'127.0.0.1',function(){this.close(()=>process.exit(0))})`]);
+  return r.status === 0;
+}
+
+function freePortSync() {
+  const r = spawnSync(process.execPath, ['-e', `const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})`], { encoding: 'utf8' });
+  return Number(r.stdout.trim());
 }
 
 /** Fails with a clear message when one of the ports is taken (another `npm start`, say). */

@@ -11,7 +11,7 @@ const chromium = ensureChromium();
 // Tools from outside the project that the document tests check PDFs with.
 ensureDebianPackages({ qpdf: '/usr/bin/qpdf', 'poppler-utils': '/usr/bin/pdffonts' });
 // A cluster and port of its own: tests never touch the `npm start` database and can run beside it.
-const pg = startCluster({ name: 'pg-test', port: Number(process.env.GUYLINE_TEST_PG_PORT ?? 54339) });
+const pg = startCluster({ name: 'pg-test', port: Number(process.env.GUYLINE_TEST_PG_PORT ?? 54339), anyPort: true });
 
 let status = 1;
 try {
