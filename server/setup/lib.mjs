@@ -99,7 +99,7 @@ export function ensureChromium() {
 
 /** Whether the `postgres` user can enter every folder on the way to dir. */
 function postgresCanReach(dir) {
-  const r = runQuiet('runuser', ['-u', 'postgres', '--', 'test', '-x', dir]);
+  const r = runQuiet('runuser', ['-u', 'postgres', '--', 'test', '-x', dir], { cwd: '/' });
   return r.status === 0;
 }
 
@@ -120,7 +120,8 @@ export function dataRoot() {
 }
 
 function asPostgres(bin, args, opts = {}) {
-  return isRoot ? runQuiet('runuser', ['-u', 'postgres', '--', bin, ...args], opts) : runQuiet(bin, args, opts);
+  // cwd '/': the postgres user may not be allowed into the project folder.
+  return isRoot ? runQuiet('runuser', ['-u', 'postgres', '--', bin, ...args], { cwd: '/', ...opts }) : runQuiet(bin, args, opts);
 }
 
 function chownToPostgres(p) {
