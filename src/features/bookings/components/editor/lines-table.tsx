@@ -44,14 +44,14 @@ export function LinesTable({ lines, items, errors, currency, showPrices, readOnl
   const byId = new Map(items.map((i) => [i.id, i]));
   const set = (index: number, patch: Partial<LineState>) => onChange(lines.map((l, i) => (i === index ? { ...l, ...patch } : l)));
   const input = (index: number, name: keyof LineState, errorKey: string, label: string, opts: { className?: string; inputMode?: 'numeric' | 'decimal'; width?: string } = {}) => (
-    <Cell label={`${label}, line ${index + 1}`} error={errors[`lines.${index}.${errorKey}`]} className={opts.className}>
+    <Cell label={`${label}, line ${index + 1}`} error={errors[`lines.${index}.${errorKey}`]} className={cn(opts.className, opts.width)}>
       {(id, describedBy) => (
         <input
           id={id}
           inputMode={opts.inputMode}
           aria-invalid={errors[`lines.${index}.${errorKey}`] ? true : undefined}
           aria-describedby={describedBy}
-          className={controlClasses(Boolean(errors[`lines.${index}.${errorKey}`]), cn('px-2 py-1 text-sm', opts.width))}
+          className={controlClasses(Boolean(errors[`lines.${index}.${errorKey}`]), 'px-2 py-1 text-sm')}
           value={String(lines[index][name])}
           onChange={(e) => set(index, { [name]: e.target.value } as Partial<LineState>)}
         />
@@ -119,13 +119,13 @@ export function LinesTable({ lines, items, errors, currency, showPrices, readOnl
                   <th scope="row" className="px-2 py-3 align-top font-semibold tabular-nums">
                     {i + 1}
                   </th>
-                  <Cell label={`Item, line ${i + 1}`} error={errors[`lines.${i}.itemId`]}>
+                  <Cell label={`Item, line ${i + 1}`} error={errors[`lines.${i}.itemId`]} className="min-w-52">
                     {(id, describedBy) => (
                       <select
                         id={id}
                         data-line-item={i}
                         aria-describedby={describedBy}
-                        className={controlClasses(Boolean(errors[`lines.${i}.itemId`]), 'w-44 px-2 py-1 text-sm')}
+                        className={controlClasses(Boolean(errors[`lines.${i}.itemId`]), 'px-2 py-1 text-sm')}
                         value={line.itemId}
                         onChange={(e) => pickItem(i, e.target.value)}
                       >
@@ -143,10 +143,10 @@ export function LinesTable({ lines, items, errors, currency, showPrices, readOnl
                       </select>
                     )}
                   </Cell>
-                  {input(i, 'description', 'description', 'Description', { width: 'w-48' })}
-                  {input(i, 'quantity', 'quantity', 'Quantity', { inputMode: 'numeric', width: 'w-20' })}
+                  {input(i, 'description', 'description', 'Description', { width: 'min-w-48' })}
+                  {input(i, 'quantity', 'quantity', 'Quantity', { inputMode: 'numeric', width: 'min-w-20' })}
                   <td className="px-2 py-3 align-top whitespace-nowrap">
-                    {!line.itemId ? (
+                    {!line.itemId || (!a && byId.get(line.itemId)?.kind === 'service') ? (
                       <span className="text-canvas-500">—</span>
                     ) : a ? (
                       short ? (
@@ -164,19 +164,19 @@ export function LinesTable({ lines, items, errors, currency, showPrices, readOnl
                   </td>
                   {showPrices ? (
                     <>
-                      {input(i, 'unitPrice', 'unitPriceCents', 'Unit price', { inputMode: 'decimal', width: 'w-24' })}
-                      {input(i, 'extraDays', 'extraDays', 'Extra days', { inputMode: 'numeric', width: 'w-16' })}
-                      {input(i, 'extraDayPrice', 'extraDayPriceCents', 'Extra-day price', { inputMode: 'decimal', width: 'w-24' })}
-                      {input(i, 'discountPercent', 'discountBp', 'Discount %', { inputMode: 'decimal', width: 'w-16' })}
-                      {input(i, 'discountAmount', 'discountCents', 'Discount amount', { inputMode: 'decimal', width: 'w-24' })}
+                      {input(i, 'unitPrice', 'unitPriceCents', 'Unit price', { inputMode: 'decimal', width: 'min-w-28' })}
+                      {input(i, 'extraDays', 'extraDays', 'Extra days', { inputMode: 'numeric', width: 'min-w-20' })}
+                      {input(i, 'extraDayPrice', 'extraDayPriceCents', 'Extra-day price', { inputMode: 'decimal', width: 'min-w-28' })}
+                      {input(i, 'discountPercent', 'discountBp', 'Discount %', { inputMode: 'decimal', width: 'min-w-20' })}
+                      {input(i, 'discountAmount', 'discountCents', 'Discount amount', { inputMode: 'decimal', width: 'min-w-28' })}
                     </>
                   ) : null}
                   <td className="px-2 py-3 align-top">
                     <input type="checkbox" aria-label={`Taxable, line ${i + 1}`} className="size-5 accent-pine-700" checked={line.taxable} onChange={(e) => set(i, { taxable: e.target.checked })} />
                   </td>
-                  <Cell label={`Kind, line ${i + 1}`}>
+                  <Cell label={`Kind, line ${i + 1}`} className="min-w-24">
                     {(id) => (
-                      <select id={id} className={controlClasses(false, 'w-24 px-2 py-1 text-sm')} value={line.kind} onChange={(e) => set(i, { kind: e.target.value as LineState['kind'] })}>
+                      <select id={id} className={controlClasses(false, 'px-2 py-1 text-sm')} value={line.kind} onChange={(e) => set(i, { kind: e.target.value as LineState['kind'] })}>
                         <option value="rental">Rental</option>
                         <option value="fee">Fee</option>
                       </select>
