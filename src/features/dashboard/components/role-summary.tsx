@@ -3,20 +3,20 @@ import type { Role } from '@shared/types';
 /** What each role does in the company, in plain words, and what Guyline lets them do today. */
 const ROLE_TEXT: Record<Role, { today: string; later: string }> = {
   owner: {
-    today: 'You look after the company’s account: its details, who works in Guyline and what each person may do.',
-    later: 'As the price list, bookings, rental agreements and payments arrive in Guyline, you will be able to manage all of them, including refunds and voids.',
+    today: 'You look after the company’s account, its price list and rules, who works in Guyline and what each person may do — and everything the office does.',
+    later: 'Rental agreements, payments, refunds and voids are on their way.',
   },
   office: {
-    today: 'For now you can see your company’s details below.',
-    later: 'Customers, quotes, bookings, rental agreements, invoices and offline payments will be yours to handle as those screens arrive.',
+    today: 'You take enquiries, keep the customer list, size tents with the planner, price bookings and reserve the stock they need.',
+    later: 'Rental agreements, invoices and offline payments are on their way.',
   },
   crew: {
-    today: 'For now you can see your company’s details below.',
-    later: 'Day sheets, load lists, site details, photos and the damage check-in after pick-up will be here for you as those screens arrive.',
+    today: 'You can see each booking’s site details, surface, anchoring and what goes on the truck, and mark bookings out and returned. Prices stay with the office.',
+    later: 'Day sheets, load lists, site photos and the damage check-in are on their way.',
   },
   bookkeeper: {
-    today: 'For now you can see your company’s details below.',
-    later: 'Bookings, invoices, payments, exports and reports will be open to you for reading as those screens arrive.',
+    today: 'You can read bookings with their quotes, the customers and the catalog.',
+    later: 'Invoices, payments, exports and reports are on their way.',
   },
 };
 
