@@ -248,7 +248,12 @@ export function validateTemplate(source: string, opts: { variables: string[]; co
     const r = resolve(path, scopes);
     if (!r) return;
     const shown = path.original;
-    if (r.kind === 'unknown') report(path, `unknown variable ${r.full || shown}`, r.full || shown);
+    if (r.kind === 'unknown') {
+      // Inside {{#each lines}} a person writes {{prise}}, so the message names what they wrote.
+      const scope = path.data || path.depth > 0 ? '' : scopes[scopes.length - 1];
+      if (scope) report(path, `unknown variable ${shown} in the items of ${scope}`, shown);
+      else report(path, `unknown variable ${r.full || shown}`, r.full || shown);
+    }
     else if (!asArgument && r.kind === 'group') report(path, `${shown} is a group of values, not one value: name a field such as ${shown}.name`, shown);
     else if (!asArgument && r.kind === 'list') report(path, `${shown} is a list: show it with {{#each ${shown}}}...{{/each}}`, shown);
   };
@@ -275,6 +280,10 @@ export function validateTemplate(source: string, opts: { variables: string[]; co
       if (arity === undefined && !['lookup', 'log'].includes(name) && node.params.length > 0) report(node, `{{${name}}} takes no arguments`);
       if (name === 'initials' && node.params[0] && node.params[0].type !== 'StringLiteral') report(node, '{{initials}} takes a key in quotes, e.g. {{initials "weather"}}');
       checkArguments(node, scopes);
+      return;
+    }
+    if (path.type === 'PathExpression' && (BLOCK_HELPERS as readonly string[]).includes(name)) {
+      report(node, `{{${name}}} is not available in ${context === 'email' ? 'an e-mail' : 'a clause'}`, name);
       return;
     }
     if (hasArgs || node.type === 'SubExpression') {
@@ -346,15 +355,31 @@ export function validateTemplate(source: string, opts: { variables: string[]; co
   return errors.length ? { ok: false, errors } : { ok: true };
 }
 
-/** Handlebars' parser says "Parse error on line 3:\n<context>\n----^\nExpecting ..." */
+/** Handlebars' parser says "Parse error on line 3:\n<context>\n----^\nExpecting ..., got 'X'". */
 function syntaxProblem(error: unknown): TemplateProblem {
   const e = error as { message?: string; lineNumber?: number; column?: number };
   const message = String(e.message ?? error);
   if (e.lineNumber !== undefined) {
-    return { line: e.lineNumber, column: e.column !== undefined ? e.column + 1 : undefined, message: `syntax error: ${message.replace(/ - \d+:\d+$/, '')}` };
+    const mismatch = /^(\S+) doesn't match (\S+)/.exec(message);
+    return {
+      line: e.lineNumber,
+      column: e.column !== undefined ? e.column + 1 : undefined,
+      message: mismatch
+        ? `syntax error: {{#${mismatch[1]}}} opened on this line is closed with {{/${mismatch[2]}}}`
+        : `syntax error: ${message.replace(/ - \d+:\d+$/, '')}`,
+    };
   }
   const lines = message.split('\n');
   const at = /(?:Parse|Lexical) error on line (\d+)/.exec(lines[0]);
-  const detail = lines.length >= 4 ? `${lines[3]} near "${lines[1].trim()}"` : lines.slice(1).join(' ');
-  return { line: at ? Number(at[1]) : 1, message: `syntax error: ${detail || message}` };
+  const near = lines[1]?.trim().replace(/^\.\.\./, '') ?? '';
+  const got = /got '([^']+)'/.exec(message)?.[1];
+  const detail =
+    got === 'EOF'
+      ? 'the template ends inside an open block: a closing {{/if}}, {{/each}}, {{/unless}} or {{/with}} is missing'
+      : got === 'INVALID'
+        ? `unexpected characters near "${near}"; a variable is written {{name}}`
+        : got
+          ? `unexpected ${got.toLowerCase().replace(/_/g, ' ')} near "${near}"`
+          : message.split('\n').slice(1).join(' ') || message;
+  return { line: at ? Number(at[1]) : 1, message: `syntax error: ${detail}` };
 }
