@@ -116,6 +116,14 @@ describe('renderDocumentMarkdown', () => {
     expect(markdown).not.toContain('"key":"first"');
   });
 
+  it('lists the occupancy of each tent, and says so when there is no tent', () => {
+    const occupancy = clauses.filter((c) => c.key === 'occupancy');
+    const withTent = renderDocumentMarkdown('{{clauses}}', sampleValues('rental_agreement'), occupancy);
+    expect(withTent).toContain('**20 x 40 ft frame tent**: no more than 53 people');
+    const values = { ...sampleValues('rental_agreement'), occupancy: [] };
+    expect(renderDocumentMarkdown('{{clauses}}', values, occupancy)).toContain('This booking has no tent.');
+  });
+
   it('throws a TemplateError naming the line of a variable the values lack', () => {
     try {
       renderDocumentMarkdown('line one\n\n{{customer.nmae}}', sampleValues('invoice'), []);
