@@ -212,7 +212,7 @@ export function validateTemplate(source: string, opts: { variables: string[]; co
     return { ok: false, errors: [syntaxProblem(error)] };
   }
   const context = opts.context ?? 'document';
-  const helpers = new Set<string>([...FORMAT_HELPERS, 'lookup', 'log']);
+  const helpers = new Set<string>([...FORMAT_HELPERS, 'lookup']);
   if (context !== 'email') BLOCK_HELPERS.forEach((h) => helpers.add(h));
   if (context === 'clause') helpers.delete('clauses');
 
@@ -277,7 +277,7 @@ export function validateTemplate(source: string, opts: { variables: string[]; co
     if (isHelperCall(path)) {
       const arity = HELPER_ARITY[name];
       if (arity !== undefined && node.params.length !== arity) report(node, `{{${name}}} takes ${arity} argument${arity === 1 ? '' : 's'}`);
-      if (arity === undefined && !['lookup', 'log'].includes(name) && node.params.length > 0) report(node, `{{${name}}} takes no arguments`);
+      if (arity === undefined && name !== 'lookup' && node.params.length > 0) report(node, `{{${name}}} takes no arguments`);
       if (name === 'initials' && node.params[0] && node.params[0].type !== 'StringLiteral') report(node, '{{initials}} takes a key in quotes, e.g. {{initials "weather"}}');
       checkArguments(node, scopes);
       return;
