@@ -4,11 +4,12 @@ import { forbidden, notFound } from '../errors';
 import type { User } from '../models';
 import { bookingPolicy } from './booking';
 import { customerPolicy } from './customer';
+import { documentPolicy } from './document';
 import { itemPolicy } from './item';
 import { organizationPolicy } from './organization';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */

@@ -3,6 +3,7 @@ import { env } from '../env';
 import { authRouter } from './auth';
 import { bookingsRouter } from './bookings';
 import { customersRouter } from './customers';
+import { documentsRouter } from './documents';
 import { itemsRouter } from './items';
 import { planningRouter } from './planning';
 import { devRouter } from './dev';
@@ -15,6 +16,7 @@ export function apiRouter() {
   api.use('/auth', authRouter);
   api.use('/users', usersRouter);
   api.use('/', planningRouter);
+  api.use('/', documentsRouter);
   api.use('/organization', organizationRouter);
   api.use('/items', itemsRouter);
   api.use('/customers', customersRouter);

@@ -60,12 +60,27 @@ export async function queueMail(to: string, template: string, values: Record<str
 
 let transport: nodemailer.Transporter | null = null;
 
-/** Sends over SMTP now; only the mail job calls this. */
-export async function deliverMail(mail: OutgoingMail) {
+export interface MailAttachment {
+  filename: string;
+  content: Buffer;
+  contentType: string;
+}
+
+/** Sends over SMTP now; only the mail jobs call this. */
+export async function deliverMail(mail: OutgoingMail & { attachments?: MailAttachment[]; replyTo?: string; fromName?: string }) {
   transport ??= nodemailer.createTransport({
     url: env.SMTP_URL,
     // The local sink does not offer STARTTLS (its built-in certificate has expired).
     ignoreTLS: env.SMTP_URL.startsWith('smtp://'),
   } as nodemailer.TransportOptions);
-  await transport.sendMail({ from: env.MAIL_FROM, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
+  const from = mail.fromName ? `"${mail.fromName.replace(/["\\]/g, '')} via Guyline" <${env.MAIL_FROM.replace(/^.*<|>.*$/g, '')}>` : env.MAIL_FROM;
+  await transport.sendMail({
+    from,
+    to: mail.to,
+    replyTo: mail.replyTo || undefined,
+    subject: mail.subject,
+    text: mail.text,
+    html: mail.html,
+    attachments: mail.attachments?.map((a) => ({ filename: a.filename, content: a.content, contentType: a.contentType })),
+  });
 }

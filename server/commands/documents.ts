@@ -1,0 +1,122 @@
+import type { Request } from 'express';
+import { Op } from 'sequelize';
+import type { DocumentKind } from '../../shared/schemas/documents';
+import { bookingDocumentValues, renderDocument } from '../documents';
+import type { Transaction } from '../db';
+import { conflict } from '../errors';
+import { Booking, BookingLine, Customer, Document, DocumentSend, Item, Organization, type User } from '../models';
+import { presentBooking } from '../presenters/booking';
+import { activeClauses, occupancyOf, templateNameFor, templateSource } from '../services/documents';
+import { queueJob } from '../services/jobs';
+import { rulesOf } from '../services/rules';
+import { storeFile } from '../services/storage';
+import { audit } from './audit';
+
+const PREFIX: Record<DocumentKind, string> = { rental_agreement: 'RA', invoice: 'INV', receipt: 'RCT', credit_note: 'CN' };
+
+/**
+ * Issues a document for a booking: renders it from the company's template and clauses, stores
+ * the PDF bytes, the values and the hash, and marks the previous version of the same kind replaced.
+ */
+export async function issueDocument(actor: User, bookingId: string, kind: DocumentKind, req: Request, transaction: Transaction) {
+  // Locking the booking serializes two people issuing at once: versions stay 1, 2, 3...
+  const booking = (await Booking.findOne({
+    where: { id: bookingId, organizationId: actor.organizationId },
+    include: [
+      { model: Customer, as: 'customer' },
+      { model: BookingLine, as: 'lines', include: [{ model: Item, as: 'item', attributes: ['id', 'kind'] }] },
+    ],
+    transaction,
+  })) as (Booking & { customer: Customer; lines: BookingLine[] }) | null;
+  if (!booking) throw conflict('That booking was not found.', 'not_found');
+  await Booking.findByPk(booking.id, { transaction, lock: transaction.LOCK.UPDATE });
+  if (booking.lines.length === 0) throw conflict('Add lines to the booking before issuing documents.', 'empty_booking');
+  const organization = (await Organization.findByPk(actor.organizationId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+
+  const previous = await Document.findOne({
+    where: { bookingId: booking.id, kind, status: 'issued' },
+    order: [['version', 'DESC']],
+    transaction,
+  });
+  const lastVersion = ((await Document.max('version', { where: { bookingId: booking.id, kind }, transaction })) as number | null) ?? 0;
+  const version = lastVersion + 1;
+  let base: string;
+  if (kind === 'invoice') {
+    const first = await Document.findOne({ where: { bookingId: booking.id, kind, version: 1 }, transaction });
+    if (first) base = first.number;
+    else {
+      base = `${PREFIX.invoice}-${String(organization.nextInvoiceNumber).padStart(5, '0')}`;
+      organization.nextInvoiceNumber += 1;
+      await organization.save({ transaction });
+    }
+  } else {
+    base = `${PREFIX[kind]}-${booking.reference}`;
+  }
+  const number = version === 1 ? base : `${base}-${version}`;
+  const issuedAt = new Date();
+  // Only roles that see prices may issue documents, so the actor's view of the booking is the priced one.
+  const row = presentBooking(booking, actor, organization);
+  const values = bookingDocumentValues({
+    booking: row,
+    organization,
+    rules: rulesOf(organization),
+    document: { kind, number, version, issuedAt },
+    occupancy: await occupancyOf(actor.organizationId, booking.lines, booking.seating, transaction),
+  });
+  const { source } = await templateSource(actor.organizationId, templateNameFor(kind), transaction);
+  const rendered = await renderDocument({
+    template: source,
+    clauses: kind === 'rental_agreement' ? await activeClauses(actor.organizationId, transaction) : [],
+    values,
+    company: { name: organization.name },
+    issuedAt,
+  });
+  const file = await storeFile(
+    { organizationId: actor.organizationId, filename: `${number}.pdf`, contentType: 'application/pdf', data: rendered.pdf, purpose: `document:${kind}` },
+    transaction,
+  );
+  const document = await Document.create(
+    {
+      organizationId: actor.organizationId, bookingId: booking.id, kind, number, version, fileId: file.id, sha256: rendered.sha256,
+      values: values as unknown as Record<string, unknown>, markdown: rendered.markdown, issuedById: actor.id,
+    },
+    { transaction },
+  );
+  if (previous) {
+    previous.status = 'replaced';
+    previous.replacedById = document.id;
+    await previous.save({ transaction });
+  }
+  await audit(
+    { organizationId: actor.organizationId, actorUserId: actor.id, action: 'document.issued', subjectType: 'booking', subjectId: booking.id, data: { documentId: document.id, kind, number, version, sha256: rendered.sha256, replaced: previous?.number ?? null } },
+    req,
+    transaction,
+  );
+  return document;
+}
+
+/**
+ * Queues the e-mail that carries a document. A second request within a minute, or while one is
+ * still queued, returns the same send: a double click sends once.
+ */
+export async function sendDocument(actor: User, document: Document, to: string, req: Request, transaction: Transaction) {
+  await Document.findByPk(document.id, { transaction, lock: transaction.LOCK.UPDATE });
+  const recent = await DocumentSend.findOne({
+    where: {
+      documentId: document.id,
+      to,
+      [Op.or]: [{ status: 'queued' }, { createdAt: { [Op.gt]: new Date(Date.now() - 60_000) } }],
+    },
+    order: [['createdAt', 'DESC']],
+    transaction,
+  });
+  if (recent) return { send: recent, duplicate: true };
+  const send = await DocumentSend.create({ organizationId: actor.organizationId, documentId: document.id, to, requestedById: actor.id }, { transaction });
+  await queueJob('send-document', { sendId: send.id }, transaction);
+  await audit(
+    { organizationId: actor.organizationId, actorUserId: actor.id, action: 'document.send_queued', subjectType: 'booking', subjectId: document.bookingId, data: { documentId: document.id, kind: document.kind, number: document.number, version: document.version, to } },
+    req,
+    transaction,
+  );
+  return { send, duplicate: false };
+}

@@ -1,0 +1,54 @@
+import type PgBoss from 'pg-boss';
+import { audit } from '../commands/audit';
+import { renderDocumentEmail, type DocumentValues } from '../documents';
+import { withTransaction } from '../db';
+import { logger } from '../logger';
+import { Document, DocumentSend, Organization } from '../models';
+import { templateNameFor, templateSource } from '../services/documents';
+import { deliverMail } from '../services/mailer';
+import { readFile } from '../services/storage';
+
+async function markSend(send: DocumentSend, changes: Partial<Pick<DocumentSend, 'status' | 'error' | 'sentAt' | 'attempts'>>, action: string | null, document: Document) {
+  await withTransaction(async (t) => {
+    await send.update(changes, { transaction: t });
+    if (action) {
+      await audit(
+        { organizationId: send.organizationId, actorUserId: null, action, subjectType: 'booking', subjectId: document.bookingId, data: { documentId: document.id, kind: document.kind, number: document.number, version: document.version, to: send.to, error: changes.error ?? null } },
+        null,
+        t,
+      );
+    }
+  });
+}
+
+/** E-mails an issued document with its stored PDF attached; retried by pg-boss, its state kept on the send. */
+export async function registerSendDocument(boss: PgBoss) {
+  await boss.work<{ sendId: string }>('send-document', { pollingIntervalSeconds: 0.5, batchSize: 1, includeMetadata: true }, async ([job]) => {
+    const send = await DocumentSend.findByPk(job.data.sendId);
+    if (!send || send.status === 'sent') return;
+    const document = (await Document.findByPk(send.documentId))!;
+    try {
+      const organization = (await Organization.findByPk(send.organizationId))!;
+      const file = await readFile(send.organizationId, document.fileId);
+      if (!file) throw new Error('the stored PDF is missing');
+      const { source } = await templateSource(send.organizationId, templateNameFor(document.kind, true));
+      const mail = renderDocumentEmail(source, document.values as unknown as DocumentValues);
+      await deliverMail({
+        to: send.to,
+        ...mail,
+        fromName: organization.name,
+        replyTo: organization.email,
+        // The exact stored bytes: the customer gets the document whose hash is on record.
+        attachments: [{ filename: `${document.number}.pdf`, content: file.data, contentType: 'application/pdf' }],
+      });
+      await markSend(send, { status: 'sent', sentAt: new Date(), attempts: send.attempts + 1, error: null }, 'document.sent', document);
+      logger.info({ sendId: send.id, to: send.to }, 'document sent');
+    } catch (err) {
+      const reason = (err as Error).message.slice(0, 500);
+      const final = job.retryCount >= job.retryLimit;
+      await markSend(send, { attempts: send.attempts + 1, error: reason, ...(final ? { status: 'failed' as const } : {}) }, final ? 'document.send_failed' : null, document);
+      logger.warn({ sendId: send.id, err: reason, final }, 'document send failed');
+      throw err;
+    }
+  });
+}
