@@ -9,16 +9,33 @@ import { presentBooking } from '../presenters/booking';
 import { activeClauses, occupancyOf, templateNameFor, templateSource } from '../services/documents';
 import { queueJob } from '../services/jobs';
 import { rulesOf } from '../services/rules';
-import { storeFile } from '../services/storage';
+import { readFile, storeFile } from '../services/storage';
 import { audit } from './audit';
 
 const PREFIX: Record<DocumentKind, string> = { rental_agreement: 'RA', invoice: 'INV', receipt: 'RCT', credit_note: 'CN' };
+
+/** Agreements and invoices have versions (a new one replaces the last); receipts and credit notes are each their own. */
+const VERSIONED: Record<DocumentKind, boolean> = { rental_agreement: true, invoice: true, receipt: false, credit_note: false };
+
+export interface PaymentDetails {
+  amountCents: number;
+  method: string;
+  receivedAt: Date;
+  reference: string;
+}
 
 /**
  * Issues a document for a booking: renders it from the company's template and clauses, stores
  * the PDF bytes, the values and the hash, and marks the previous version of the same kind replaced.
  */
-export async function issueDocument(actor: User, bookingId: string, kind: DocumentKind, req: Request, transaction: Transaction) {
+export async function issueDocument(
+  actor: User,
+  bookingId: string,
+  kind: DocumentKind,
+  req: Request,
+  transaction: Transaction,
+  extra: { payment?: PaymentDetails; credit?: { amountCents: number; reason: string } } = {},
+) {
   // Locking the booking serializes two people issuing at once: versions stay 1, 2, 3...
   const booking = (await Booking.findOne({
     where: { id: bookingId, organizationId: actor.organizationId },
@@ -33,11 +50,9 @@ export async function issueDocument(actor: User, bookingId: string, kind: Docume
   if (booking.lines.length === 0) throw conflict('Add lines to the booking before issuing documents.', 'empty_booking');
   const organization = (await Organization.findByPk(actor.organizationId, { transaction, lock: transaction.LOCK.UPDATE }))!;
 
-  const previous = await Document.findOne({
-    where: { bookingId: booking.id, kind, status: 'issued' },
-    order: [['version', 'DESC']],
-    transaction,
-  });
+  const previous = VERSIONED[kind]
+    ? await Document.findOne({ where: { bookingId: booking.id, kind, status: 'issued' }, order: [['version', 'DESC']], transaction })
+    : null;
   const lastVersion = ((await Document.max('version', { where: { bookingId: booking.id, kind }, transaction })) as number | null) ?? 0;
   const version = lastVersion + 1;
   let base: string;
@@ -52,7 +67,8 @@ export async function issueDocument(actor: User, bookingId: string, kind: Docume
   } else {
     base = `${PREFIX[kind]}-${booking.reference}`;
   }
-  const number = version === 1 ? base : `${base}-${version}`;
+  // Receipts and credit notes are numbered in sequence on the booking: RCT-B-1001-1, -2...
+  const number = !VERSIONED[kind] ? `${base}-${version}` : version === 1 ? base : `${base}-${version}`;
   const issuedAt = new Date();
   // Only roles that see prices may issue documents, so the actor's view of the booking is the priced one.
   const row = presentBooking(booking, actor, organization);
@@ -62,13 +78,15 @@ export async function issueDocument(actor: User, bookingId: string, kind: Docume
     rules: rulesOf(organization),
     document: { kind, number, version, issuedAt },
     occupancy: await occupancyOf(actor.organizationId, booking.lines, booking.seating, transaction),
+    payment: extra.payment,
+    credit: extra.credit,
   });
   const { source } = await templateSource(actor.organizationId, templateNameFor(kind), transaction);
   const rendered = await renderDocument({
     template: source,
     clauses: kind === 'rental_agreement' ? await activeClauses(actor.organizationId, transaction) : [],
     values,
-    company: { name: organization.name },
+    company: { name: organization.name, logo: organization.logoFileId ? ((await readFile(organization.id, organization.logoFileId))?.data ?? null) : null },
     issuedAt,
   });
   const file = await storeFile(

@@ -18,6 +18,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare rules: CreationOptional<Record<string, unknown>>;
   declare nextBookingNumber: CreationOptional<number>;
   declare nextInvoiceNumber: CreationOptional<number>;
+  declare logoFileId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -39,6 +40,7 @@ Organization.init(
     rules: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     nextBookingNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1001 },
     nextInvoiceNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+    logoFileId: { type: DataTypes.UUID, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

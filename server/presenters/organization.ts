@@ -16,6 +16,7 @@ export function presentOrganization(org: Organization, actor: User): Organizatio
     email: org.email,
     currency: org.currency as OrganizationResponse['currency'],
     timeZone: org.timeZone,
+    hasLogo: !!org.logoFileId,
     can: { update: can(actor, 'organization', 'update', org) },
   };
 }

@@ -40,5 +40,5 @@ export type OrganizationSettings = z.infer<typeof OrganizationSettings>;
 export const UpdateOrganizationRequest = OrganizationSettings.partial();
 export type UpdateOrganizationRequest = z.infer<typeof UpdateOrganizationRequest>;
 
-export const OrganizationResponse = OrganizationSettings.extend({ id: z.string(), can: z.object({ update: z.boolean() }) });
+export const OrganizationResponse = OrganizationSettings.extend({ id: z.string(), hasLogo: z.boolean(), can: z.object({ update: z.boolean() }) });
 export type OrganizationResponse = z.infer<typeof OrganizationResponse>;

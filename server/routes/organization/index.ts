@@ -1,4 +1,9 @@
 import { Router } from 'express';
+import { fileTypeFromBuffer } from 'file-type';
+import { LOGO_MAX_BYTES, LOGO_TYPES } from '../../../shared/schemas/documents';
+import { HttpError, notFound } from '../../errors';
+import { singleFile } from '../../middlewares/upload';
+import { deleteFile, readFile, storeFile } from '../../services/storage';
 import { UpdateOrganizationRequest } from '../../../shared/schemas/organization';
 import { audit } from '../../commands/audit';
 import { withTransaction } from '../../db';
@@ -9,6 +14,57 @@ import { authorize } from '../../policies';
 import { presentOrganization } from '../../presenters/organization';
 
 export const organizationRouter = Router();
+
+// The logo printed in the header of the company's documents: PNG or JPEG, checked by content.
+organizationRouter.post('/logo', authenticate, (req, _res, next) => {
+  const { user, organization } = auth(req);
+  authorize(user, 'organization', 'update', organization);
+  next();
+}, singleFile(LOGO_MAX_BYTES), async (req, res) => {
+  const { user } = auth(req);
+  const file = req.file!;
+  const detected = await fileTypeFromBuffer(file.buffer);
+  if (!detected || !(LOGO_TYPES as readonly string[]).includes(detected.mime)) {
+    throw new HttpError(415, 'unsupported_media_type', 'Upload the logo as a PNG or JPEG image.', { file: 'Not a PNG or JPEG.' });
+  }
+  const org = await withTransaction(async (t) => {
+    const o = (await Organization.findByPk(user.organizationId, { transaction: t, lock: t.LOCK.UPDATE }))!;
+    const old = o.logoFileId;
+    const stored = await storeFile({ organizationId: o.id, filename: file.originalname.slice(0, 255) || `logo.${detected.ext}`, contentType: detected.mime, data: file.buffer, purpose: 'logo' }, t);
+    o.logoFileId = stored.id;
+    await o.save({ transaction: t });
+    if (old) await deleteFile(o.id, old, t);
+    await audit({ organizationId: o.id, actorUserId: user.id, action: 'organization.logo_updated', subjectType: 'organization', subjectId: o.id, data: { sha256: stored.sha256 } }, req, t);
+    return o;
+  });
+  res.json(presentOrganization(org, user));
+});
+
+organizationRouter.get('/logo', authenticate, async (req, res) => {
+  const { organization } = auth(req);
+  const file = organization.logoFileId ? await readFile(organization.id, organization.logoFileId) : null;
+  if (!file) throw notFound('The logo');
+  res.setHeader('Content-Type', file.contentType);
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Cache-Control', 'private, no-cache');
+  res.send(file.data);
+});
+
+organizationRouter.delete('/logo', authenticate, async (req, res) => {
+  const { user } = auth(req);
+  const org = await withTransaction(async (t) => {
+    const o = (await Organization.findByPk(user.organizationId, { transaction: t, lock: t.LOCK.UPDATE }))!;
+    authorize(user, 'organization', 'update', o);
+    if (o.logoFileId) {
+      const old = o.logoFileId;
+      o.logoFileId = null;
+      await o.save({ transaction: t });
+      await deleteFile(o.id, old, t);
+    }
+    return o;
+  });
+  res.json(presentOrganization(org, user));
+});
 
 organizationRouter.get('/', authenticate, (req, res) => {
   const { user, organization } = auth(req);

@@ -76,6 +76,50 @@ describe('issuing documents', () => {
   });
 });
 
+describe('receipts, credit notes and the logo', () => {
+  // A 1x1 PNG (PNG signature, IHDR, IDAT, IEND).
+  const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
+
+  it('a receipt says what was received and each one is its own document; never more than the booking comes to', async () => {
+    const { office, owner, organization } = await buildCompany();
+    const { client: o, booking } = await bookingFor(office, organization.id);
+    const bad = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 0, method: 'barter', receivedAt: 'yesterday' });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['amountCents', 'method', 'receivedAt']);
+    // 350.00 at 7.25% = 375.38 (350 x 1.0725 = 375.375, half up): more than that is refused.
+    expect(booking.totals.totalCents).toBe(37_538);
+    const tooMuch = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 37_539 + booking.totals.securityDepositCents, method: 'cash', receivedAt: '2027-05-01T15:00:00Z' });
+    expect(tooMuch.status).toBe(400);
+    const first = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 11_261, method: 'check', receivedAt: '2027-05-01T15:00:00Z', reference: 'Check 1042' });
+    expect(first.status).toBe(201);
+    expect(first.body).toMatchObject({ kind: 'receipt', number: `RCT-${booking.reference}-1`, status: 'issued' });
+    const second = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 26_277, method: 'cash', receivedAt: '2027-06-10T15:00:00Z' });
+    expect(second.body.number).toBe(`RCT-${booking.reference}-2`);
+    expect((await o.get(`/api/documents/${first.body.id}`)).body.status).toBe('issued');
+    const stored = await Document.findByPk(first.body.id);
+    expect(stored!.markdown).toContain('$112.61');
+    expect(stored!.markdown).toContain('Check 1042');
+    const credit = await (await as(owner)).post(`/api/bookings/${booking.id}/credit-note`, { amountCents: 5_000, reason: 'Two chairs arrived broken' });
+    expect(credit.status).toBe(201);
+    expect((await Document.findByPk(credit.body.id))!.markdown).toContain('Two chairs arrived broken');
+  });
+
+  it('the owner uploads a PNG or JPEG logo that documents print; other files are refused', async () => {
+    const { owner, office } = await buildCompany();
+    const o = await as(owner);
+    const up = (c: ApiClient, bytes: Buffer, name: string) =>
+      c.agent.post('/api/organization/logo').set('X-CSRF-Token', c.csrf).set('X-Forwarded-For', c.ip).attach('file', bytes, name);
+    expect((await up(await as(office), PNG, 'logo.png')).status).toBe(403);
+    expect((await up(o, Buffer.from('%PDF-1.4 not an image'), 'logo.png')).status).toBe(415);
+    expect((await up(o, Buffer.alloc(1024 * 1024 + 1, 1), 'logo.png')).status).toBe(413);
+    const ok = await up(o, PNG, 'logo.png');
+    expect(ok.status).toBe(200);
+    expect(ok.body.hasLogo).toBe(true);
+    expect((await o.get('/api/organization/logo')).headers['content-type']).toBe('image/png');
+    expect((await o.delete('/api/organization/logo')).body.hasLogo).toBe(false);
+  });
+});
+
 describe('templates and clauses', () => {
   it('a template with an unknown variable or bad syntax is a 400 naming the line; nothing is saved', async () => {
     const { owner, office } = await buildCompany();
