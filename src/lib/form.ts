@@ -96,5 +96,5 @@ export function useZodForm<S extends z.ZodType, V extends Record<string, string>
     setFormError(null);
   };
 
-  return { values, setValue, errors, formError, setFormError, field, parse, showError, handleSubmit, reset, formRef };
+  return { values, setValue, errors, setErrors, formError, setFormError, field, parse, showError, handleSubmit, reset, formRef };
 }

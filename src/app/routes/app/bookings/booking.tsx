@@ -1,21 +1,28 @@
-import type { QueryClient } from '@tanstack/react-query';
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useCallback } from 'react';
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { Alert } from '@/components/ui/alert';
+import { SectionCard } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { PageSpinner } from '@/components/ui/spinner';
 import { TextLink } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
 import { formatZoned } from '@/lib/zoned-time';
+import { useMe } from '@/features/auth/api/get-me';
+import { bookingHistoryQueryOptions } from '@/features/bookings/api/get-booking-history';
 import { bookingQueryOptions, useBooking } from '@/features/bookings/api/get-booking';
 import { BookingEditor } from '@/features/bookings/components/editor/booking-editor';
 import { StatusBadge } from '@/features/bookings/components/status';
+import { bookingDocumentsQueryOptions } from '@/features/documents/api/get-booking-documents';
+import { DocumentsPanel } from '@/features/documents/components/documents-panel';
 import { useEditorData } from './editor-data';
 import { requireArea } from '../../../guards';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
   await requireArea(queryClient, request, 'bookings');
   void queryClient.prefetchQuery(bookingQueryOptions(params.id ?? ''));
+  void queryClient.prefetchQuery(bookingDocumentsQueryOptions(params.id ?? ''));
   return null;
 };
 
@@ -23,6 +30,10 @@ export default function BookingRoute() {
   const { id = '' } = useParams();
   const booking = useBooking(id);
   const data = useEditorData();
+  const me = useMe();
+  const queryClient = useQueryClient();
+  // Issuing and sending show on the booking's history.
+  const refreshHistory = useCallback(() => void queryClient.invalidateQueries({ queryKey: bookingHistoryQueryOptions(id).queryKey }), [queryClient, id]);
 
   if (booking.isPending) return <PageSpinner label="Loading the booking…" />;
   if (booking.isError) {
@@ -57,7 +68,31 @@ export default function BookingRoute() {
       ) : !data.ready ? (
         <PageSpinner label="Loading…" />
       ) : (
-        <BookingEditor booking={b} items={data.items} rules={data.rules} timeZone={data.timeZone} currency={data.currency} seePrices={b.can.seePrices} />
+        <BookingEditor
+          booking={b}
+          items={data.items}
+          rules={data.rules}
+          timeZone={data.timeZone}
+          currency={data.currency}
+          seePrices={b.can.seePrices}
+          // Documents carry prices, so they are for those who may see them (not the crew).
+          documents={
+            b.can.seePrices
+              ? ({ dirty }) => (
+                  <SectionCard title="Documents" description="Rental agreements and invoices made from the saved booking, with the e-mails that carried them.">
+                    <DocumentsPanel
+                      booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email }}
+                      timeZone={data.timeZone}
+                      // The documents API says who may send each document but not who may issue: owner and office may.
+                      canIssue={me.data?.user.role === 'owner' || me.data?.user.role === 'office'}
+                      dirty={dirty}
+                      onChanged={refreshHistory}
+                    />
+                  </SectionCard>
+                )
+              : undefined
+          }
+        />
       )}
     </>
   );

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { formatMoney } from '@shared/money';
 import { quote } from '@shared/quote';
 import { BookingInput, type BookingRow, type ShortfallDetail } from '@shared/schemas/bookings';
@@ -48,9 +48,11 @@ interface BookingEditorProps {
   seePrices: boolean;
   initialCustomerId?: string;
   onCreated?: (booking: BookingRow) => void;
+  /** The page puts other features beside a saved booking (its documents); they need to know about unsaved edits. */
+  documents?: (state: { dirty: boolean }) => ReactNode;
 }
 
-export function BookingEditor({ booking, items, rules, timeZone, currency, seePrices: seePricesNew, initialCustomerId, onCreated }: BookingEditorProps) {
+export function BookingEditor({ booking, items, rules, timeZone, currency, seePrices: seePricesNew, initialCustomerId, onCreated, documents }: BookingEditorProps) {
   const initial = useMemo(() => (booking ? stateFromBooking(booking, timeZone) : emptyBooking(initialCustomerId)), [booking, timeZone, initialCustomerId]);
   const [state, setState] = useState<BookingState>(initial);
   const [baseline, setBaseline] = useState(initial);
@@ -303,6 +305,8 @@ export function BookingEditor({ booking, items, rules, timeZone, currency, seePr
           </div>
         )}
       </form>
+
+      {booking && documents ? <div className="mt-6">{documents({ dirty })}</div> : null}
 
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
         {seePrices ? (

@@ -1,4 +1,5 @@
 import { BOOKING_STATUS_LABELS, type BookingStatus } from '@shared/schemas/bookings';
+import { DOCUMENT_KIND_LABELS, type DocumentKind } from '@shared/schemas/documents';
 import { Alert } from '@/components/ui/alert';
 import { Spinner } from '@/components/ui/spinner';
 import { errorMessage } from '@/lib/api';
@@ -6,6 +7,16 @@ import { formatZoned } from '@/lib/zoned-time';
 import { useBookingHistory, type BookingHistoryEntry } from '../../api/get-booking-history';
 
 const label = (s: unknown) => BOOKING_STATUS_LABELS[s as BookingStatus] ?? String(s);
+
+/** "Rental agreement RA-0007 (version 2)", from whatever of kind, number and version the entry holds. */
+function documentOf(d: Record<string, unknown>): string {
+  const kind = DOCUMENT_KIND_LABELS[d.kind as DocumentKind] ?? 'Document';
+  const number = typeof d.number === 'string' && d.number ? ` ${d.number}` : '';
+  const version = typeof d.version === 'number' ? ` (version ${d.version})` : '';
+  return `${kind}${number}${version}`;
+}
+
+const to = (d: Record<string, unknown>) => (typeof d.to === 'string' && d.to ? ` to ${d.to}` : '');
 
 function describe(entry: BookingHistoryEntry): string {
   const d = entry.data ?? {};
@@ -18,8 +29,16 @@ function describe(entry: BookingHistoryEntry): string {
       return `Status: ${label(d.from)} → ${label(d.to)}`;
     case 'booking.shortfall':
       return 'Tried to reserve, but stock was short';
+    case 'document.issued':
+      return `Issued ${documentOf(d)}`;
+    case 'document.send_queued':
+      return `Queued ${documentOf(d)} for e-mail${to(d)}`;
+    case 'document.sent':
+      return `E-mailed ${documentOf(d)}${to(d)}`;
+    case 'document.send_failed':
+      return `Could not e-mail ${documentOf(d)}${to(d)}${typeof d.error === 'string' && d.error ? `: ${d.error}` : ''}`;
     default:
-      return entry.action.replace(/^booking\./, '').replaceAll('_', ' ');
+      return entry.action.replace(/^(booking|document)\./, '').replaceAll('_', ' ');
   }
 }
 

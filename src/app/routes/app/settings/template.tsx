@@ -1,0 +1,56 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { data, useParams, type LoaderFunctionArgs } from 'react-router';
+import { TEMPLATE_NAMES, type TemplateName } from '@shared/schemas/documents';
+import { Alert } from '@/components/ui/alert';
+import { PageHeader } from '@/components/ui/page-header';
+import { PageSpinner } from '@/components/ui/spinner';
+import { TextLink } from '@/components/ui/text-link';
+import { paths } from '@/config/paths';
+import { errorMessage, isApiError } from '@/lib/api';
+import { useMe } from '@/features/auth/api/get-me';
+import { BookingPicker, type PickedBooking } from '@/features/bookings/components/booking-picker';
+import { templateQueryOptions, useTemplate } from '@/features/templates/api/get-template';
+import { TemplateEditor } from '@/features/templates/components/template-editor';
+import { templateTitle } from '@/features/templates/components/template-labels';
+import { requireMe } from '../../../guards';
+
+export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
+  await requireMe(queryClient, request);
+  if (!TEMPLATE_NAMES.includes(params.name as TemplateName)) throw data('No such template', { status: 404 });
+  void queryClient.prefetchQuery(templateQueryOptions(params.name ?? ''));
+  return null;
+};
+
+export default function TemplateRoute() {
+  const { name = '' } = useParams();
+  const template = useTemplate(name);
+  const me = useMe();
+  const [booking, setBooking] = useState<PickedBooking | null>(null);
+  const title = templateTitle(name);
+  if (template.isError && isApiError(template.error) && template.error.status === 404) throw template.error;
+
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <TextLink to={paths.app.settingsTemplates.getHref()}>Back to document templates</TextLink>
+      </p>
+      <PageHeader title={`${title} template`} description="Edit the text, insert variables where the cursor is, and check the preview with a real booking before saving." />
+      {template.isPending ? (
+        <PageSpinner label="Loading the template…" />
+      ) : template.isError ? (
+        <Alert tone="danger" title="The template could not be loaded.">
+          {errorMessage(template.error)}
+        </Alert>
+      ) : (
+        <TemplateEditor
+          template={template.data}
+          // The templates API does not say who may change them: the owner may, others read.
+          canEdit={me.data?.user.role === 'owner'}
+          bookingId={booking?.id ?? null}
+          bookingPicker={<BookingPicker label="Preview with booking" value={booking} onChange={setBooking} pickFirst />}
+        />
+      )}
+    </>
+  );
+}

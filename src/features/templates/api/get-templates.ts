@@ -1,0 +1,16 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { TemplateRow } from '@shared/schemas/documents';
+import { api } from '@/lib/api';
+
+/** The company's templates: its own copies, or the shipped defaults where it has none. */
+export const getTemplates = (signal?: AbortSignal) => api.get<{ data: TemplateRow[] }>('/api/templates', { signal });
+
+export const templatesBaseKey = ['templates'] as const;
+
+export const templatesQueryOptions = () =>
+  queryOptions({
+    queryKey: ['templates', 'list'] as const,
+    queryFn: ({ signal }) => getTemplates(signal),
+  });
+
+export const useTemplates = (options: { enabled?: boolean } = {}) => useQuery({ ...templatesQueryOptions(), ...options });
