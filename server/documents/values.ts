@@ -8,15 +8,10 @@ import { formatMoney } from '../../shared/money';
 import type { BookingRow } from '../../shared/schemas/bookings';
 import type { CompanyRules } from '../../shared/schemas/rules';
 
-export const DOCUMENT_KINDS = ['rental_agreement', 'invoice', 'receipt', 'credit_note'] as const;
-export type DocumentKind = (typeof DOCUMENT_KINDS)[number];
+import { DOCUMENT_KINDS, DOCUMENT_KIND_LABELS, type DocumentKind } from '../../shared/schemas/documents';
 
-export const DOCUMENT_TITLES: Record<DocumentKind, string> = {
-  rental_agreement: 'Rental agreement',
-  invoice: 'Invoice',
-  receipt: 'Receipt',
-  credit_note: 'Credit note',
-};
+export { DOCUMENT_KINDS, type DocumentKind };
+export const DOCUMENT_TITLES: Record<DocumentKind, string> = DOCUMENT_KIND_LABELS;
 
 export interface OrganizationForDocuments {
   name: string;

@@ -1,8 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
 import { sequelize } from '../db';
 
-export const DOCUMENT_KINDS = ['rental_agreement', 'invoice', 'receipt', 'credit_note'] as const;
-export type DocumentKind = (typeof DOCUMENT_KINDS)[number];
+import { DOCUMENT_KINDS, type DocumentKind } from '../../shared/schemas/documents';
 
 /** An issued document: immutable once written; a change makes a new version and marks this one replaced. */
 export class Document extends Model<InferAttributes<Document>, InferCreationAttributes<Document>> {
