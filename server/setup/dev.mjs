@@ -37,5 +37,12 @@ const stop = () => {
     process.exit(0);
   }, 800);
 };
-process.on('SIGINT', stop);
-process.on('SIGTERM', stop);
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, stop);
+for (const c of children) {
+  c.on('exit', (code) => {
+    if (!stopping) {
+      say(`A process stopped (exit ${code}); stopping everything.`);
+      stop();
+    }
+  });
+}
