@@ -32,7 +32,7 @@ export function DocumentItem({ document: d, customerEmail, timeZone }: DocumentI
     <li className={`rounded-md border p-3 sm:p-4 ${current ? 'border-canvas-200 bg-white' : 'border-canvas-200 bg-canvas-50'}`} aria-label={name}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="font-semibold text-canvas-900">
-          {DOCUMENT_KIND_LABELS[d.kind]} {d.number}
+          {DOCUMENT_KIND_LABELS[d.kind]} {d.number}{' '}
           <span className="ml-2 text-sm font-normal text-canvas-700">version {d.version}</span>
         </h3>
         <Badge tone={DOCUMENT_STATUS_TONES[d.status]}>{DOCUMENT_STATUS_LABELS[d.status]}</Badge>

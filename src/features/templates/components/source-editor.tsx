@@ -71,7 +71,8 @@ export function SourceEditor({ label, value, onChange, hint, error, problemLines
       <FieldLabel htmlFor={id}>{label}</FieldLabel>
       <div className={cn('flex overflow-hidden rounded-md border bg-white', error ? 'border-rust-600' : 'border-canvas-400', (disabled || readOnly) && 'bg-canvas-50')}>
         <div aria-hidden="true" className="relative w-12 shrink-0 overflow-hidden border-r border-canvas-200 bg-canvas-100 font-mono text-xs text-canvas-600 select-none">
-          <div style={{ transform: `translateY(${PAD_PX - scrollTop}px)` }}>
+          {/* Absolute, so a long file's numbers never make the box taller than the textarea. */}
+          <div className="absolute inset-x-0 top-0" style={{ transform: `translateY(${PAD_PX - scrollTop}px)` }}>
             {Array.from({ length: lineCount }, (_, i) => (
               <div key={i} style={{ height: LINE_PX, lineHeight: `${LINE_PX}px` }} className={cn('pr-2 text-right', problemLines?.has(i + 1) && 'bg-rust-600 font-bold text-white')}>
                 {i + 1}

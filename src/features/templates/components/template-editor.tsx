@@ -108,7 +108,11 @@ export function TemplateEditor({ template, canEdit, bookingId, bookingPicker }: 
       <div className="min-w-0 space-y-6">
         <SectionCard
           title="Source"
-          description="Handlebars over Markdown: {{variable}} fills in a value; {{#if variable}}…{{/if}} shows a part only when it has one."
+          description={
+            template.name.startsWith('email-')
+              ? 'Plain text with Handlebars: the first line is “Subject: …”; {{variable}} fills in a value. The PDF goes as an attachment.'
+              : 'Handlebars over Markdown: {{variable}} fills in a value; {{#if variable}}…{{/if}} shows a part only when it has one.'
+          }
           actions={template.isDefault && !dirty ? <Badge>Shipped default</Badge> : <Badge tone="caution">{dirty ? 'Unsaved changes' : 'Edited'}</Badge>}
         >
           <form onSubmit={save} noValidate aria-label={`${title} template`} className="space-y-4">

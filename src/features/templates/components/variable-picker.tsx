@@ -21,10 +21,11 @@ export function VariablePicker({ variables, onInsert, disabled }: { variables: r
               <button
                 type="button"
                 disabled={disabled}
-                aria-label={`Insert ${v}`}
                 onClick={() => onInsert(`{{${v}}}`)}
                 className="rounded border border-canvas-300 bg-white px-2 py-1 font-mono text-xs text-canvas-900 hover:border-pine-600 hover:bg-pine-50 disabled:text-canvas-500"
               >
+                {/* Named by its content, not aria-label, so it never answers to a form field's label. */}
+                <span className="sr-only">Insert </span>
                 {`{{${v}}}`}
               </button>
             ) : (
