@@ -7,7 +7,7 @@ import { PageSpinner } from '@/components/ui/spinner';
 import { TextLink } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { errorMessage } from '@/lib/api';
-import { meQueryOptions } from '@/features/auth/api/get-me';
+import { meQueryOptions, useMe } from '@/features/auth/api/get-me';
 import { organizationQueryOptions, useOrganization } from '@/features/organization/api/get-organization';
 import { OrganizationDetails } from '@/features/organization/components/organization-details';
 import { OrganizationForm } from '@/features/organization/components/organization-form';
@@ -27,6 +27,8 @@ export default function SettingsRoute() {
   const queryClient = useQueryClient();
   const organization = useOrganization();
   const rules = useRules();
+  // Templates and clauses are read by every role but the crew (the server's document policy).
+  const readsTemplates = useMe().data?.user.role !== 'crew';
 
   return (
     <>
@@ -51,18 +53,20 @@ export default function SettingsRoute() {
           <OrganizationDetails organization={organization.data} />
         </Card>
       )}
-      <SectionCard className="mt-6" title="Documents" description="What your rental agreements, invoices, receipts and their e-mails say.">
-        <ul className="space-y-3">
-          <li>
-            <TextLink to={paths.app.settingsTemplates.getHref()}>Document templates</TextLink>
-            <p className="text-sm text-canvas-700">The text and layout of each document and e-mail, with a live preview.</p>
-          </li>
-          <li>
-            <TextLink to={paths.app.settingsClauses.getHref()}>Clause library</TextLink>
-            <p className="text-sm text-canvas-700">The terms of the rental agreement, their order, and which ones ask for the customer’s initials.</p>
-          </li>
-        </ul>
-      </SectionCard>
+      {readsTemplates ? (
+        <SectionCard className="mt-6" title="Documents" description="What your rental agreements, invoices, receipts and their e-mails say.">
+          <ul className="space-y-3">
+            <li>
+              <TextLink to={paths.app.settingsTemplates.getHref()}>Document templates</TextLink>
+              <p className="text-sm text-canvas-700">The text and layout of each document and e-mail, with a live preview.</p>
+            </li>
+            <li>
+              <TextLink to={paths.app.settingsClauses.getHref()}>Clause library</TextLink>
+              <p className="text-sm text-canvas-700">The terms of the rental agreement, their order, and which ones ask for the customer’s initials.</p>
+            </li>
+          </ul>
+        </SectionCard>
+      ) : null}
       <SectionCard
         className="mt-6"
         title="Pricing and planning rules"

@@ -44,10 +44,11 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
   const failed = agreement.error ?? invoice.error;
 
   // The booking's history lists sends too: refresh it when a queued e-mail goes out or fails.
-  const states = sendStates(documents.data?.data);
+  const states = documents.data ? sendStates(documents.data.data) : null;
   const seen = useRef(states);
   useEffect(() => {
-    if (seen.current !== states) onChanged?.();
+    if (states === null) return;
+    if (seen.current !== null && seen.current !== states) onChanged?.();
     seen.current = states;
   }, [states, onChanged]);
 

@@ -35,7 +35,14 @@ export default function TemplateRoute() {
       <p className="mb-2 text-sm">
         <TextLink to={paths.app.settingsTemplates.getHref()}>Back to document templates</TextLink>
       </p>
-      <PageHeader title={`${title} template`} description="Edit the text, insert variables where the cursor is, and check the preview with a real booking before saving." />
+      <PageHeader
+        title={`${title} template`}
+        description={
+          me.data?.user.role === 'owner'
+            ? 'Edit the text, insert variables where the cursor is, and check the preview with a real booking before saving.'
+            : 'The text this document is made from, with a preview from a real booking.'
+        }
+      />
       {template.isPending ? (
         <PageSpinner label="Loading the template…" />
       ) : template.isError ? (
