@@ -30,7 +30,7 @@ function describe(entry: BookingHistoryEntry): string {
     case 'booking.shortfall':
       return 'Tried to reserve, but stock was short';
     case 'document.issued':
-      return `Issued ${documentOf(d)}`;
+      return `Issued ${documentOf(d)}${typeof d.replaced === 'string' && d.replaced ? `, replacing ${d.replaced}` : ''}`;
     case 'document.send_queued':
       return `Queued ${documentOf(d)} for e-mail${to(d)}`;
     case 'document.sent':
