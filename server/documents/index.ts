@@ -14,7 +14,8 @@ export { type Clause, loadDefaultClauses, parseClauseFile } from './clauses';
 export { loadDefaultEmailTemplate, loadDefaultTemplate } from './defaults';
 export { EMAIL_VARIABLES, renderDocumentEmail, validateEmailTemplate } from './email';
 export { markdownToHtml } from './html';
-export { renderPdf } from './pdf';
+export { drawPageChrome, pageFrame, renderPdf, type PdfInput } from './pdf';
+export type { DocumentFill, SignatureFill } from './pdfBlocks';
 export { renderDocumentMarkdown, TemplateError, validateTemplate, type TemplateProblem, type TemplateValidation } from './template';
 export {
   bookingDocumentValues,

@@ -9,7 +9,7 @@
 import PDFDocument from 'pdfkit';
 import { Lexer, type Token, type Tokens } from 'marked';
 import { parseBlock, type InitialsBlock } from './blocks';
-import { drawInitials, drawInitialsBox, drawSignatures, drawTable, ensureSpace, INITIALS_BOX, type Frame } from './pdfBlocks';
+import { drawInitials, drawInitialsBox, drawSignatures, drawTable, ensureSpace, INITIALS_BOX, type DocumentFill, type Frame } from './pdfBlocks';
 import { COLORS, FONTS, inlineRuns, plainText, writeRuns, type Run } from './pdfText';
 
 export interface PdfInput {
@@ -20,6 +20,18 @@ export interface PdfInput {
   documentLabel: string;
   /** The PDF's creation date; pass the issue time so the same document gives the same bytes. */
   createdAt?: Date;
+  /**
+   * What the signer wrote into the boxes: initials by key and the customer's signature. The
+   * filled marks are drawn inside the boxes' fixed areas, so the layout (and every page break)
+   * stays exactly as issued.
+   */
+  fill?: DocumentFill;
+  /**
+   * Called once the document's pages are finished (headers and footers drawn) and before
+   * doc.end(): the place to append pages of one's own (drawPageChrome gives them the same
+   * header) or to add a signature placeholder.
+   */
+  beforeEnd?: (doc: PDFKit.PDFDocument) => void;
 }
 
 const PAGE = { size: 'LETTER' as const, top: 86, bottom: 62, side: 56 };
@@ -33,7 +45,10 @@ const HEADINGS: Record<number, { size: number; base: 'regular' | 'semibold'; bol
 };
 
 class Layout {
-  constructor(private readonly doc: PDFKit.PDFDocument) {}
+  constructor(
+    private readonly doc: PDFKit.PDFDocument,
+    private readonly fill: DocumentFill = {},
+  ) {}
 
   blocks(tokens: Token[], frame: Frame, tight = false): void {
     for (let i = 0; i < tokens.length; i++) {
@@ -66,7 +81,7 @@ class Layout {
     ensureSpace(doc, height + h.after + BODY_SIZE * 4);
     const top = doc.y;
     if (initials) {
-      drawInitialsBox(doc, initials, frame.left + frame.width - INITIALS_BOX.width, top);
+      drawInitialsBox(doc, initials, frame.left + frame.width - INITIALS_BOX.width, top, this.fill.initials?.[initials.key]);
       // The title sits level with the middle of the box.
       doc.y = top + Math.max(0, (INITIALS_BOX.height - h.size * 1.3) / 2);
     }
@@ -141,8 +156,8 @@ class Layout {
         const t = token as Tokens.Code;
         const block = parseBlock(t.lang, t.text);
         if (block?.type === 'table') drawTable(doc, block, frame);
-        else if (block?.type === 'initials') drawInitials(doc, block, frame);
-        else if (block?.type === 'signature') drawSignatures(doc, block, frame);
+        else if (block?.type === 'initials') drawInitials(doc, block, frame, this.fill.initials?.[block.key]);
+        else if (block?.type === 'signature') drawSignatures(doc, block, frame, this.fill.signature);
         else this.paragraph([{ text: t.text, bold: false, italic: false }], { left: frame.left + 10, width: frame.width - 10 }, 7, { size: 9 });
         return;
       }
@@ -193,7 +208,11 @@ class Layout {
   }
 }
 
-function drawHeaderAndFooter(doc: PDFKit.PDFDocument, input: PdfInput, pageIndex: number, pageCount: number): void {
+/** The frame body text is laid out in, on every page. */
+export const pageFrame = (doc: PDFKit.PDFDocument): Frame => ({ left: PAGE.side, width: doc.page.width - PAGE.side * 2 });
+
+/** The current page's header (company name and logo, document label) and a footer line of text. */
+export function drawPageChrome(doc: PDFKit.PDFDocument, input: Pick<PdfInput, 'company' | 'documentLabel'>, footer: string): void {
   const left = PAGE.side;
   const width = doc.page.width - PAGE.side * 2;
   const saved = { ...doc.page.margins };
@@ -237,7 +256,7 @@ function drawHeaderAndFooter(doc: PDFKit.PDFDocument, input: PdfInput, pageIndex
     .font(FONTS.regular)
     .fontSize(8)
     .fillColor(COLORS.muted)
-    .text(`Page ${pageIndex + 1} of ${pageCount}`, left, footerY, { width, align: 'center', lineBreak: false });
+    .text(footer, left, footerY, { width, align: 'center', lineBreak: false });
   doc.page.margins = saved;
 }
 
@@ -266,14 +285,15 @@ export function renderPdf(input: PdfInput): Promise<Buffer> {
     doc.on('error', reject);
   });
   try {
-    const frame: Frame = { left: PAGE.side, width: doc.page.width - PAGE.side * 2 };
+    const frame = pageFrame(doc);
     doc.font(FONTS.regular).fontSize(BODY_SIZE).fillColor(COLORS.ink);
-    new Layout(doc).blocks(Lexer.lex(input.markdown, { gfm: true }), frame);
+    new Layout(doc, input.fill).blocks(Lexer.lex(input.markdown, { gfm: true }), frame);
     const range = doc.bufferedPageRange();
     for (let i = range.start; i < range.start + range.count; i++) {
       doc.switchToPage(i);
-      drawHeaderAndFooter(doc, input, i - range.start, range.count);
+      drawPageChrome(doc, input, `Page ${i - range.start + 1} of ${range.count}`);
     }
+    input.beforeEnd?.(doc);
     doc.end();
   } catch (error) {
     doc.end();

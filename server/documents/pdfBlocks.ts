@@ -1,6 +1,7 @@
 /**
  * The blocks of blocks.ts drawn with pdfkit: the line-item table (header repeated after a page
- * break, money right-aligned, totals under it), the initials box and the signature block.
+ * break, money right-aligned, totals under it), the initials box and the signature block. A
+ * signed copy fills the boxes inside their fixed areas, never moving what comes after them.
  */
 import type { InitialsBlock, SignatureBlock, TableBlock } from './blocks';
 import { COLORS, FONTS } from './pdfText';
@@ -9,6 +10,28 @@ export interface Frame {
   left: number;
   width: number;
 }
+
+/** The customer's signature as it goes into the signature block of a signed copy. */
+export interface SignatureFill {
+  /** The party whose block is filled, by its role as printed (e.g. "Customer"). */
+  role: string;
+  /** The drawn signature; without it the typed name is written in the signature style. */
+  imagePng?: Buffer | null;
+  typedName: string;
+  /** e.g. "Signed electronically by Juniper Hollowell on April 22, 2027" */
+  statement: string;
+  /** Written on the date line. */
+  date: string;
+}
+
+export interface DocumentFill {
+  /** Initials by the initials block's key. */
+  initials?: Record<string, string>;
+  signature?: SignatureFill;
+}
+
+/** Ink for what a signer wrote (initials, a typed signature): a pen's blue, not the print's. */
+export const SIGNATURE_INK = '#1c3f7a';
 
 const bottom = (doc: PDFKit.PDFDocument) => doc.page.height - doc.page.margins.bottom;
 
@@ -130,28 +153,63 @@ function drawTotals(doc: PDFKit.PDFDocument, table: TableBlock, widths: number[]
 
 export const INITIALS_BOX = { width: 92, height: 30 };
 
-/** The box itself, its caption inside at the top as on a paper form. */
-export function drawInitialsBox(doc: PDFKit.PDFDocument, block: InitialsBlock, x: number, y: number): void {
+/** The box itself, its caption inside at the top as on a paper form; on a signed copy, the initials in it. */
+export function drawInitialsBox(doc: PDFKit.PDFDocument, block: InitialsBlock, x: number, y: number, initials?: string): void {
   doc.rect(x, y, INITIALS_BOX.width, INITIALS_BOX.height).lineWidth(0.9).strokeColor(COLORS.ink).stroke();
   doc
     .font(FONTS.regular)
     .fontSize(6.5)
     .fillColor(COLORS.muted)
     .text(block.label, x + 4, y + 3, { width: INITIALS_BOX.width - 8, lineBreak: false });
+  if (initials) {
+    doc
+      .font(FONTS.italic)
+      .fontSize(14)
+      .fillColor(SIGNATURE_INK)
+      .text(initials, x + 4, y + 11, { width: INITIALS_BOX.width - 8, align: 'center', lineBreak: false, ellipsis: true });
+  }
   doc.fillColor(COLORS.ink);
 }
 
 /** An initials box on its own, at the right edge (a clause's box sits beside its heading instead). */
-export function drawInitials(doc: PDFKit.PDFDocument, block: InitialsBlock, frame: Frame): void {
+export function drawInitials(doc: PDFKit.PDFDocument, block: InitialsBlock, frame: Frame, initials?: string): void {
   ensureSpace(doc, INITIALS_BOX.height + 10);
   const y = doc.y + 2;
-  drawInitialsBox(doc, block, frame.left + frame.width - INITIALS_BOX.width, y);
+  drawInitialsBox(doc, block, frame.left + frame.width - INITIALS_BOX.width, y, initials);
   doc.x = frame.left;
   doc.y = y + INITIALS_BOX.height + 8;
 }
 
+/**
+ * The signature itself between the party's heading and the signature line: the drawn image, or
+ * the typed name in the italic face, with the statement of electronic signing just above the line.
+ */
+function drawSignatureMark(doc: PDFKit.PDFDocument, fill: SignatureFill, x: number, top: number, lineY: number, width: number): void {
+  doc.font(FONTS.regular).fontSize(7);
+  const statementHeight = doc.heightOfString(fill.statement, { width, lineGap: 0.5 });
+  const statementY = lineY - 2 - Math.min(statementHeight, 18);
+  const markBottom = statementY - 2;
+  if (fill.imagePng) {
+    doc.image(fill.imagePng, x, top, { fit: [width, Math.max(10, markBottom - top)], valign: 'bottom' });
+  } else {
+    doc.font(FONTS.italic).fontSize(20);
+    const size = Math.max(11, Math.min(20, (20 * width) / Math.max(1, doc.widthOfString(fill.typedName))));
+    doc
+      .font(FONTS.italic)
+      .fontSize(size)
+      .fillColor(SIGNATURE_INK)
+      .text(fill.typedName, x, markBottom - size * 1.25, { width, lineBreak: false });
+  }
+  doc
+    .font(FONTS.regular)
+    .fontSize(7)
+    .fillColor(COLORS.muted)
+    .text(fill.statement, x, statementY, { width, height: 18, lineGap: 0.5, ellipsis: true });
+  doc.fillColor(COLORS.ink);
+}
+
 /** Side by side: each party's role, a signature line, the typed name and a date line. */
-export function drawSignatures(doc: PDFKit.PDFDocument, block: SignatureBlock, frame: Frame): void {
+export function drawSignatures(doc: PDFKit.PDFDocument, block: SignatureBlock, frame: Frame, fill?: SignatureFill): void {
   const parties = block.parties.length ? block.parties : [{ role: 'Customer', name: '', onBehalfOf: '' }];
   const gap = 32;
   const perRow = Math.min(2, parties.length);
@@ -168,6 +226,11 @@ export function drawSignatures(doc: PDFKit.PDFDocument, block: SignatureBlock, f
       };
       doc.font(FONTS.semibold).fontSize(10).fillColor(COLORS.ink).text(p.role, x, y0, { width: colW, lineBreak: false });
       if (p.onBehalfOf) doc.font(FONTS.regular).fontSize(9).fillColor(COLORS.muted).text(p.onBehalfOf, x, y0 + 14, { width: colW, lineBreak: false });
+      const signed = fill && p.role === fill.role ? fill : undefined;
+      if (signed) {
+        drawSignatureMark(doc, signed, x, y0 + (p.onBehalfOf ? 28 : 16), y0 + 62, colW);
+        doc.font(FONTS.regular).fontSize(10).fillColor(COLORS.ink).text(signed.date, x, y0 + 118, { width: colW, lineBreak: false });
+      }
       line(y0 + 62, 'Signature');
       if (p.name) doc.font(FONTS.regular).fontSize(10).fillColor(COLORS.ink).text(p.name, x, y0 + 84, { width: colW, lineBreak: false });
       line(y0 + 98, 'Printed name');
