@@ -84,6 +84,8 @@ export function presentBooking(
       update: can(actor, 'booking', 'update', booking),
       changeStatus: BOOKING_STATUSES.filter((s) => can(actor, 'booking', 'changeStatus', booking, s)),
       seePrices,
+      issueDocuments: can(actor, 'document', 'issue'),
+      readDocuments: can(actor, 'document', 'readTemplates'),
     },
   };
 }

@@ -180,7 +180,7 @@ export interface BookingRow {
   totals: QuoteResult | null;
   createdAt: string;
   updatedAt: string;
-  can: { update: boolean; changeStatus: BookingStatus[]; seePrices: boolean };
+  can: { update: boolean; changeStatus: BookingStatus[]; seePrices: boolean; issueDocuments: boolean; readDocuments: boolean };
 }
 
 /** A 409 on reserving: which items are short and by how many. */

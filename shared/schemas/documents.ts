@@ -54,6 +54,11 @@ export const TemplatePreviewRequest = TemplateSource.extend({
   bookingId: z.uuid({ error: 'Choose a booking to preview with.' }),
 });
 
+/** GET /api/templates and GET /api/clauses carry what the user may do with them. */
+export interface LibraryPermissions {
+  can: { update: boolean };
+}
+
 export interface TemplateRow {
   name: TemplateName;
   source: string;

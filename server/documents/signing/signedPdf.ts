@@ -64,12 +64,15 @@ function checkSignaturePng(png: Buffer): void {
   if (!width || !height || width > 4000 || height > 4000) throw new SigningInputError('The drawn signature has an unusable size.');
 }
 
+// ICU writes a narrow no-break space before AM/PM; the embedded fonts' latin subset reads better with a plain one (as values.ts does).
+const plainSpaces = (s: string) => s.replace(/[\u202f\u00a0]/g, ' ');
+
 function signedDate(at: Date, timeZone: string): string {
   return new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: 'long', day: 'numeric' }).format(at);
 }
 
 function signedDateTime(at: Date, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', {
+  const format = new Intl.DateTimeFormat('en-US', {
     timeZone,
     year: 'numeric',
     month: 'long',
@@ -77,7 +80,8 @@ function signedDateTime(at: Date, timeZone: string): string {
     hour: 'numeric',
     minute: '2-digit',
     timeZoneName: 'short',
-  }).format(at);
+  });
+  return plainSpaces(format.format(at));
 }
 
 function checkInput(input: SignedPdfInput) {

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import sanitizeHtml from 'sanitize-html';
 import { Op } from 'sequelize';
 import { z } from 'zod';
 import { IdParams } from '../../../shared/schemas/common';
@@ -15,7 +16,7 @@ import { quoteBooking } from '../../services/pricing';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
 import { Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, Organization, User } from '../../models';
-import { authorize, sameOrganization } from '../../policies';
+import { authorize, can, sameOrganization } from '../../policies';
 import { presentBooking } from '../../presenters/booking';
 import { presentClause, presentDocument, presentTemplate } from '../../presenters/document';
 import {
@@ -155,7 +156,7 @@ documentsRouter.get('/templates', authenticate, async (req, res) => {
     const { source, own } = await templateSource(user.organizationId, name);
     data.push(presentTemplate(name, source, own, variablesFor(name)));
   }
-  res.json({ data, total: data.length });
+  res.json({ data, total: data.length, can: { update: can(user, 'document', 'editTemplates') } });
 });
 
 documentsRouter.get('/templates/:name', authenticate, validate(TemplateParams, 'params'), async (req, res) => {
@@ -219,7 +220,8 @@ documentsRouter.post('/templates/:name/preview', authenticate, validate(Template
     if (email) {
       const { renderDocumentEmail } = await import('../../documents');
       const mail = renderDocumentEmail(source, values);
-      res.json({ html: `<p><strong>Subject:</strong> ${mail.subject.replace(/</g, '&lt;')}</p>${mail.html.replace(/^.*<body[^>]*>|<\/body>.*$/gs, '')}` });
+      const body = mail.html.replace(/^.*<body[^>]*>|<\/body>.*$/gs, '');
+      res.json({ html: sanitizeHtml(`<p><strong>Subject:</strong> ${mail.subject.replace(/&/g, '&amp;').replace(/</g, '&lt;')}</p>${body}`) });
       return;
     }
     const markdown = renderDocumentMarkdown(source, values, await activeClauses(user.organizationId));
@@ -237,7 +239,7 @@ documentsRouter.get('/clauses', authenticate, async (req, res) => {
   authorize(user, 'document', 'readTemplates');
   await ensureClauseLibrary(user.organizationId);
   const rows = await CompanyClause.findAll({ where: { organizationId: user.organizationId }, order: [['position', 'ASC'], ['key', 'ASC']] });
-  res.json({ data: rows.map(presentClause), total: rows.length });
+  res.json({ data: rows.map(presentClause), total: rows.length, can: { update: can(user, 'document', 'editTemplates') } });
 });
 
 function keyTaken(err: unknown) {

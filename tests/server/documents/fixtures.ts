@@ -118,7 +118,7 @@ export function sampleBooking(overrides: { customerName?: string; lines?: LineSe
     totals,
     createdAt: '2027-04-20T15:00:00.000Z',
     updatedAt: '2027-04-20T15:00:00.000Z',
-    can: { update: true, changeStatus: [], seePrices: true },
+    can: { update: true, changeStatus: [], seePrices: true, issueDocuments: true, readDocuments: true },
   };
 }
 
