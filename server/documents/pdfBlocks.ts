@@ -185,26 +185,27 @@ export function drawInitials(doc: PDFKit.PDFDocument, block: InitialsBlock, fram
  * the typed name in the italic face, with the statement of electronic signing just above the line.
  */
 function drawSignatureMark(doc: PDFKit.PDFDocument, fill: SignatureFill, x: number, top: number, lineY: number, width: number): void {
+  // The statement is printed in full: up to three lines for a long name, the mark above it.
   doc.font(FONTS.regular).fontSize(7);
-  const statementHeight = doc.heightOfString(fill.statement, { width, lineGap: 0.5 });
-  const statementY = lineY - 2 - Math.min(statementHeight, 18);
+  const statementHeight = Math.min(doc.heightOfString(fill.statement, { width, lineGap: 0.5 }), 28);
+  const statementY = lineY - 2 - statementHeight;
   const markBottom = statementY - 2;
   if (fill.imagePng) {
     doc.image(fill.imagePng, x, top, { fit: [width, Math.max(10, markBottom - top)], valign: 'bottom' });
   } else {
     doc.font(FONTS.italic).fontSize(20);
-    const size = Math.max(11, Math.min(20, (20 * width) / Math.max(1, doc.widthOfString(fill.typedName))));
+    const size = Math.max(9, Math.min(20, (20 * width) / Math.max(1, doc.widthOfString(fill.typedName)), markBottom - top));
     doc
       .font(FONTS.italic)
       .fontSize(size)
       .fillColor(SIGNATURE_INK)
-      .text(fill.typedName, x, markBottom - size * 1.25, { width, lineBreak: false });
+      .text(fill.typedName, x, markBottom - size * 1.25, { width, lineBreak: false, ellipsis: true });
   }
   doc
     .font(FONTS.regular)
     .fontSize(7)
     .fillColor(COLORS.muted)
-    .text(fill.statement, x, statementY, { width, height: 18, lineGap: 0.5, ellipsis: true });
+    .text(fill.statement, x, statementY, { width, height: statementHeight + 1, lineGap: 0.5, ellipsis: true });
   doc.fillColor(COLORS.ink);
 }
 

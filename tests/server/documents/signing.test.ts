@@ -238,7 +238,7 @@ describe('renderSignedPdf with a typed signature', () => {
     expect(text).toContain('Juniper A. Hollowell');
     expect(text).toContain('Signed electronically by Juniper A. Hollowell on April 22, 2027');
     // 16:05 UTC is 11:05 in Chicago in April (CDT, UTC-5; IANA tz database).
-    expect(text).toContain('April 22, 2027 at 11:05 AM CDT');
+    expect(pages.join('\n')).toContain('April 22, 2027 at 11:05 AM CDT');
     for (const initials of Object.values(INITIALS)) expect(text).toContain(initials);
 
     const certificatePages = pages.slice(issuedPages.length);
