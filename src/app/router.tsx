@@ -35,6 +35,8 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.auth.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(c) },
         { path: paths.auth.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(c) },
         { path: paths.auth.invite.path, lazy: () => import('./routes/auth/invite').then(c) },
+        // Outside the app shell and its sign-in: customers have no account.
+        { path: paths.sign.path, lazy: () => import('./routes/sign').then(c) },
         {
           path: paths.app.root.path,
           lazy: () => import('./routes/app/root').then(c),

@@ -16,6 +16,8 @@ export const paths = {
     resetPassword: { path: '/reset-password', getHref: (token?: string) => withQuery('/reset-password', { token }) },
     invite: { path: '/invite', getHref: (token?: string) => withQuery('/invite', { token }) },
   },
+  /** The customer's public signing page; the token comes from the e-mailed link. */
+  sign: { path: '/sign/:token', getHref: (token: string) => `/sign/${encodeURIComponent(token)}` },
   app: {
     root: { path: '/app', getHref: () => '/app' },
     dashboard: { path: '', getHref: () => '/app' },
