@@ -11,6 +11,7 @@ import { meQueryOptions, useMe } from '@/features/auth/api/get-me';
 import { organizationQueryOptions, useOrganization } from '@/features/organization/api/get-organization';
 import { OrganizationDetails } from '@/features/organization/components/organization-details';
 import { OrganizationForm } from '@/features/organization/components/organization-form';
+import { LogoPanel } from '@/features/organization/components/logo-panel';
 import { rulesQueryOptions, useRules } from '@/features/organization/api/get-rules';
 import { RulesForm } from '@/features/organization/components/rules-form';
 import { requireMe } from '../../guards';
@@ -53,6 +54,15 @@ export default function SettingsRoute() {
           <OrganizationDetails organization={organization.data} />
         </Card>
       )}
+      {organization.data ? (
+        <SectionCard
+          className="mt-6"
+          title="Logo"
+          description="Printed in the header of your rental agreements, invoices, receipts and credit notes. Documents already issued keep the logo they were printed with."
+        >
+          <LogoPanel organization={organization.data} />
+        </SectionCard>
+      ) : null}
       {readsTemplates ? (
         <SectionCard className="mt-6" title="Documents" description="What your rental agreements, invoices, receipts and their e-mails say.">
           <ul className="space-y-3">

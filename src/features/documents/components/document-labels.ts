@@ -1,4 +1,4 @@
-import { DOCUMENT_KIND_LABELS, type DocumentRow, type DocumentSendRow } from '@shared/schemas/documents';
+import { DOCUMENT_KIND_LABELS, PAYMENT_METHODS, type DocumentRow, type DocumentSendRow } from '@shared/schemas/documents';
 import type { BadgeTone } from '@/components/ui/badge';
 
 export const DOCUMENT_STATUS_LABELS: Record<DocumentRow['status'], string> = {
@@ -12,6 +12,15 @@ export const DOCUMENT_STATUS_TONES: Record<DocumentRow['status'], BadgeTone> = {
   replaced: 'neutral',
   void: 'negative',
 };
+
+export const PAYMENT_METHOD_LABELS: Record<(typeof PAYMENT_METHODS)[number], string> = {
+  cash: 'Cash',
+  check: 'Check',
+  transfer: 'Bank transfer',
+  card: 'Card',
+};
+
+export const paymentMethodOptions = PAYMENT_METHODS.map((value) => ({ value, label: PAYMENT_METHOD_LABELS[value] }));
 
 export const SEND_STATUS_TONES: Record<DocumentSendRow['status'], BadgeTone> = {
   queued: 'caution',

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { DOCUMENT_KIND_LABELS, type DocumentKind, type DocumentRow } from '@shared/schemas/documents';
 import { Alert, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -8,10 +8,16 @@ import { errorMessage } from '@/lib/api';
 import { useCreateAgreement } from '../api/create-agreement';
 import { useCreateInvoice } from '../api/create-invoice';
 import { useBookingDocuments } from '../api/get-booking-documents';
+import { CreditNoteForm } from './credit-note-form';
 import { DocumentItem } from './document-item';
 import { documentName } from './document-labels';
+import { ReceiptForm } from './receipt-form';
 
 type IssuableKind = Extract<DocumentKind, 'rental_agreement' | 'invoice'>;
+/** Documents that record money and so start with a form. */
+type RecordedKind = Extract<DocumentKind, 'receipt' | 'credit_note'>;
+
+const RECORD_LABELS: Record<RecordedKind, string> = { receipt: 'Record a receipt', credit_note: 'Issue a credit note' };
 
 const CREATE_LABELS: Record<IssuableKind, { first: string; next: string; progress: string }> = {
   rental_agreement: { first: 'Create rental agreement', next: 'New version of the rental agreement', progress: 'Making the rental agreement…' },
@@ -21,7 +27,7 @@ const CREATE_LABELS: Record<IssuableKind, { first: string; next: string; progres
 interface DocumentsPanelProps {
   booking: { id: string; reference: string; customerEmail: string };
   timeZone: string;
-  /** Owner and office issue documents; others read them. */
+  /** From the booking's `can.issueDocuments`: who may issue documents; others read them. */
   canIssue: boolean;
   /** Unsaved edits in the booking: documents are made from the saved booking. */
   dirty: boolean;
@@ -38,6 +44,8 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
   const agreement = useCreateAgreement();
   const invoice = useCreateInvoice();
   const [confirming, setConfirming] = useState<IssuableKind | null>(null);
+  const [recording, setRecording] = useState<RecordedKind | null>(null);
+  const ids = useId();
   const [message, setMessage] = useState<string | null>(null);
   const mutations = { rental_agreement: agreement, invoice };
   const issuing = agreement.isPending ? 'rental_agreement' : invoice.isPending ? 'invoice' : null;
@@ -67,6 +75,26 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
     });
   };
 
+  /** Closing a form puts the focus back on the button that opened it, not on the page. */
+  const closeRecording = () => {
+    const opener = recording ? `${ids}-${recording}` : null;
+    setRecording(null);
+    if (opener) requestAnimationFrame(() => document.getElementById(opener)?.focus());
+  };
+
+  const recorded = (d: DocumentRow) => {
+    closeRecording();
+    setMessage(`${documentName(d)} is ready.`);
+    onChanged?.();
+  };
+
+  const toggleRecording = (kind: RecordedKind) => {
+    setMessage(null);
+    agreement.reset();
+    invoice.reset();
+    setRecording((open) => (open === kind ? null : kind));
+  };
+
   const confirmingCurrent = confirming ? current(confirming) : null;
 
   return (
@@ -90,8 +118,30 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
                 </Button>
               );
             })}
+            {(['receipt', 'credit_note'] as const).map((kind) => (
+              <Button
+                key={kind}
+                id={`${ids}-${kind}`}
+                size="sm"
+                variant="secondary"
+                disabled={issuing !== null}
+                aria-expanded={recording === kind}
+                aria-controls={recording === kind ? `${ids}-${kind}-form` : undefined}
+                onClick={() => toggleRecording(kind)}
+              >
+                {RECORD_LABELS[kind]}
+              </Button>
+            ))}
           </div>
-          <p className="text-sm text-canvas-600">Receipts and credit notes are made when payments are recorded.</p>
+          {recording ? (
+            <div id={`${ids}-${recording}-form`}>
+              {recording === 'receipt' ? (
+                <ReceiptForm bookingId={booking.id} timeZone={timeZone} blocked={dirty} onDone={recorded} onCancel={closeRecording} />
+              ) : (
+                <CreditNoteForm bookingId={booking.id} blocked={dirty} onDone={recorded} onCancel={closeRecording} />
+              )}
+            </div>
+          ) : null}
         </div>
       ) : null}
 

@@ -9,7 +9,6 @@ import { TextLink } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
 import { formatZoned } from '@/lib/zoned-time';
-import { useMe } from '@/features/auth/api/get-me';
 import { bookingHistoryQueryOptions } from '@/features/bookings/api/get-booking-history';
 import { bookingQueryOptions, useBooking } from '@/features/bookings/api/get-booking';
 import { BookingEditor } from '@/features/bookings/components/editor/booking-editor';
@@ -21,8 +20,12 @@ import { requireArea } from '../../../guards';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
   await requireArea(queryClient, request, 'bookings');
-  void queryClient.prefetchQuery(bookingQueryOptions(params.id ?? ''));
-  void queryClient.prefetchQuery(bookingDocumentsQueryOptions(params.id ?? ''));
+  const id = params.id ?? '';
+  // The documents only for those the booking says may read them, so the crew is not sent a 403.
+  void queryClient
+    .ensureQueryData(bookingQueryOptions(id))
+    .then((booking) => (booking.can.readDocuments ? queryClient.prefetchQuery(bookingDocumentsQueryOptions(id)) : undefined))
+    .catch(() => undefined);
   return null;
 };
 
@@ -30,7 +33,6 @@ export default function BookingRoute() {
   const { id = '' } = useParams();
   const booking = useBooking(id);
   const data = useEditorData();
-  const me = useMe();
   const queryClient = useQueryClient();
   // Issuing and sending show on the booking's history.
   const refreshHistory = useCallback(() => void queryClient.invalidateQueries({ queryKey: bookingHistoryQueryOptions(id).queryKey }), [queryClient, id]);
@@ -75,16 +77,17 @@ export default function BookingRoute() {
           timeZone={data.timeZone}
           currency={data.currency}
           seePrices={b.can.seePrices}
-          // Documents carry prices, so they are for those who may see them (not the crew).
           documents={
-            b.can.seePrices
+            b.can.readDocuments
               ? ({ dirty }) => (
-                  <SectionCard title="Documents" description="Rental agreements and invoices made from the saved booking, with the e-mails that carried them.">
+                  <SectionCard
+                    title="Documents"
+                    description="Rental agreements, invoices, receipts and credit notes made from the saved booking, with the e-mails that carried them."
+                  >
                     <DocumentsPanel
                       booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email }}
                       timeZone={data.timeZone}
-                      // The documents API says who may send each document but not who may issue: owner and office may.
-                      canIssue={me.data?.user.role === 'owner' || me.data?.user.role === 'office'}
+                      canIssue={b.can.issueDocuments}
                       dirty={dirty}
                       onChanged={refreshHistory}
                     />

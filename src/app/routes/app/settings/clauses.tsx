@@ -12,7 +12,6 @@ import { PageSpinner } from '@/components/ui/spinner';
 import { TextLink } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { errorMessage } from '@/lib/api';
-import { useMe } from '@/features/auth/api/get-me';
 import { clausesQueryOptions, useClauses } from '@/features/templates/api/get-clauses';
 import { useDeleteClause } from '@/features/templates/api/delete-clause';
 import { useTemplates } from '@/features/templates/api/get-templates';
@@ -39,9 +38,7 @@ const inputOf = (c: ClauseRow, position = c.position): ClauseInput => ({
 export default function ClausesRoute() {
   const clauses = useClauses();
   const templates = useTemplates();
-  const me = useMe();
-  // The clauses API does not say who may change them: the owner may, others read.
-  const canEdit = me.data?.user.role === 'owner';
+  const canEdit = clauses.data?.can.update ?? false;
   const [editing, setEditing] = useState<ClauseRow | 'new' | null>(null);
   const [deleting, setDeleting] = useState<ClauseRow | null>(null);
   const [message, setMessage] = useState<string | null>(null);
@@ -117,7 +114,7 @@ export default function ClausesRoute() {
           {moveError}
         </Alert>
       ) : null}
-      {!canEdit ? <p className="mb-4 text-sm text-canvas-700">You can read the clauses; changing them is the owner’s.</p> : null}
+      {clauses.data && !canEdit ? <p className="mb-4 text-sm text-canvas-700">You can read the clauses; changing them is the owner’s.</p> : null}
 
       {editing !== null ? (
         <div ref={formHeading} className="mb-6 scroll-mt-4">

@@ -8,9 +8,9 @@ import { PageSpinner } from '@/components/ui/spinner';
 import { TextLink } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
-import { useMe } from '@/features/auth/api/get-me';
 import { BookingPicker, type PickedBooking } from '@/features/bookings/components/booking-picker';
 import { templateQueryOptions, useTemplate } from '@/features/templates/api/get-template';
+import { templatesQueryOptions, useTemplates } from '@/features/templates/api/get-templates';
 import { TemplateEditor } from '@/features/templates/components/template-editor';
 import { templateTitle } from '@/features/templates/components/template-labels';
 import { requireMe } from '../../../guards';
@@ -19,13 +19,16 @@ export const clientLoader = (queryClient: QueryClient) => async ({ request, para
   await requireMe(queryClient, request);
   if (!TEMPLATE_NAMES.includes(params.name as TemplateName)) throw data('No such template', { status: 404 });
   void queryClient.prefetchQuery(templateQueryOptions(params.name ?? ''));
+  // Who may change templates comes with the list.
+  void queryClient.prefetchQuery(templatesQueryOptions());
   return null;
 };
 
 export default function TemplateRoute() {
   const { name = '' } = useParams();
   const template = useTemplate(name);
-  const me = useMe();
+  const library = useTemplates();
+  const canEdit = library.data?.can.update ?? false;
   const [booking, setBooking] = useState<PickedBooking | null>(null);
   const title = templateTitle(name);
   if (template.isError && isApiError(template.error) && template.error.status === 404) throw template.error;
@@ -38,12 +41,14 @@ export default function TemplateRoute() {
       <PageHeader
         title={`${title} template`}
         description={
-          me.data?.user.role === 'owner'
+          library.isPending
+            ? undefined
+            : canEdit
             ? 'Edit the text, insert variables where the cursor is, and check the preview with a real booking before saving.'
             : 'The text this document is made from, with a preview from a real booking.'
         }
       />
-      {template.isPending ? (
+      {template.isPending || library.isPending ? (
         <PageSpinner label="Loading the template…" />
       ) : template.isError ? (
         <Alert tone="danger" title="The template could not be loaded.">
@@ -52,8 +57,7 @@ export default function TemplateRoute() {
       ) : (
         <TemplateEditor
           template={template.data}
-          // The templates API does not say who may change them: the owner may, others read.
-          canEdit={me.data?.user.role === 'owner'}
+          canEdit={canEdit}
           bookingId={booking?.id ?? null}
           bookingPicker={<BookingPicker label="Preview with booking" value={booking} onChange={setBooking} pickFirst />}
         />

@@ -42,6 +42,7 @@ export default function TemplatesRoute() {
         </Alert>
       ) : (
         <div className="space-y-8">
+          {templates.data.can.update ? null : <p className="text-sm text-canvas-700">You can read the templates; changing them is the owner’s.</p>}
           <section aria-labelledby="documents-heading">
             <h2 id="documents-heading" className="mb-3 text-lg font-semibold text-canvas-900">
               Documents
