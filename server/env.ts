@@ -6,6 +6,8 @@ const EnvSchema = z.object({
   HOST: z.string().default('127.0.0.1'),
   DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'DATABASE_URL must be a postgres:// URL'),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
+  /** Encrypts each company's signing key at rest. Losing it means new certificates; keep it with the backups. */
+  SIGNING_KEY_SECRET: z.string().min(32, 'SIGNING_KEY_SECRET must be at least 32 characters'),
   APP_URL: z.string().url('APP_URL must be a URL like http://localhost:3000').default('http://localhost:3000'),
   SMTP_URL: z.string().regex(/^smtps?:\/\//, 'SMTP_URL must be an smtp:// URL').default('smtp://127.0.0.1:2525'),
   MAIL_FROM: z.string().default('Guyline <no-reply@guyline.test>'),

@@ -10,6 +10,7 @@ import type { TokenPurpose } from '../models/AuthToken';
 import { queueMail } from '../services/mailer';
 import { revokeAllSessions } from '../services/sessions';
 import { hashToken, newToken } from '../services/tokens';
+import { ensureCompanyCertificate } from '../services/companyCertificate';
 import { audit } from './audit';
 
 const BCRYPT_ROUNDS = 12;
@@ -86,6 +87,8 @@ export async function signup(
     },
     { transaction },
   );
+  // Each company signs its agreements with its own certificate, made now.
+  await ensureCompanyCertificate(organization.id, transaction);
   await audit({ organizationId: organization.id, actorUserId: user.id, action: 'organization.created', subjectType: 'organization', subjectId: organization.id }, req, transaction);
   await queueMail(user.email, 'welcome', { name: user.name, organizationName: organization.name, link: `${env.APP_URL}/sign-in` }, transaction);
   return { user, organization };

@@ -96,7 +96,7 @@ export async function issueDocument(
   const document = await Document.create(
     {
       organizationId: actor.organizationId, bookingId: booking.id, kind, number, version, fileId: file.id, sha256: rendered.sha256,
-      values: values as unknown as Record<string, unknown>, markdown: rendered.markdown, issuedById: actor.id,
+      values: values as unknown as Record<string, unknown>, markdown: rendered.markdown, issuedById: actor.id, issuedAt,
     },
     { transaction },
   );

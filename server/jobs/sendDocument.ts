@@ -5,7 +5,7 @@ import { withTransaction } from '../db';
 import { logger } from '../logger';
 import { Document, DocumentSend, Organization } from '../models';
 import { templateNameFor, templateSource } from '../services/documents';
-import { deliverMail } from '../services/mailer';
+import { deliverMail, renderMail } from '../services/mailer';
 import { readFile } from '../services/storage';
 
 async function markSend(send: DocumentSend, changes: Partial<Pick<DocumentSend, 'status' | 'error' | 'sentAt' | 'attempts'>>, action: string | null, document: Document) {
@@ -31,8 +31,11 @@ export async function registerSendDocument(boss: PgBoss) {
       const organization = (await Organization.findByPk(send.organizationId))!;
       const file = await readFile(send.organizationId, document.fileId);
       if (!file) throw new Error('the stored PDF is missing');
-      const { source } = await templateSource(send.organizationId, templateNameFor(document.kind, true));
-      const mail = renderDocumentEmail(source, document.values as unknown as DocumentValues);
+      const values = document.values as unknown as DocumentValues;
+      const mail =
+        document.kind === 'signed_agreement'
+          ? renderMail('signed-agreement', { customerName: values.customer.name, companyName: organization.name, number: document.number, reference: values.booking.reference, sha256: document.sha256 })
+          : renderDocumentEmail((await templateSource(send.organizationId, templateNameFor(document.kind, true))).source, values);
       await deliverMail({
         to: send.to,
         ...mail,

@@ -19,6 +19,9 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare nextBookingNumber: CreationOptional<number>;
   declare nextInvoiceNumber: CreationOptional<number>;
   declare logoFileId: CreationOptional<string | null>;
+  declare certificatePem: CreationOptional<string | null>;
+  declare certificateFingerprint: CreationOptional<string | null>;
+  declare privateKeyEncrypted: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -41,6 +44,9 @@ Organization.init(
     nextBookingNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1001 },
     nextInvoiceNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     logoFileId: { type: DataTypes.UUID, allowNull: true },
+    certificatePem: { type: DataTypes.TEXT, allowNull: true },
+    certificateFingerprint: { type: DataTypes.STRING(64), allowNull: true },
+    privateKeyEncrypted: { type: DataTypes.TEXT, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

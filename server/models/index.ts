@@ -11,6 +11,8 @@ import { Item } from './Item';
 import { Organization } from './Organization';
 import { Session } from './Session';
 import { Shortfall } from './Shortfall';
+import { SigningEvent } from './SigningEvent';
+import { SigningRequest } from './SigningRequest';
 import { StoredFile } from './StoredFile';
 import { User } from './User';
 
@@ -25,8 +27,10 @@ BookingLine.belongsTo(Item, { foreignKey: 'itemId', as: 'item' });
 
 Document.belongsTo(Booking, { foreignKey: 'bookingId', as: 'booking' });
 Document.hasMany(DocumentSend, { foreignKey: 'documentId', as: 'sends' });
+SigningRequest.hasMany(SigningEvent, { foreignKey: 'signingRequestId', as: 'events' });
+SigningRequest.belongsTo(Document, { foreignKey: 'documentId', as: 'document' });
 
 export {
   AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item,
-  Organization, Session, Shortfall, StoredFile, User,
+  Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,
 };

@@ -4,6 +4,7 @@ import { authRouter } from './auth';
 import { bookingsRouter } from './bookings';
 import { customersRouter } from './customers';
 import { documentsRouter } from './documents';
+import { signingRouter } from './signing';
 import { itemsRouter } from './items';
 import { planningRouter } from './planning';
 import { devRouter } from './dev';
@@ -17,6 +18,7 @@ export function apiRouter() {
   api.use('/users', usersRouter);
   api.use('/', planningRouter);
   api.use('/', documentsRouter);
+  api.use('/', signingRouter);
   api.use('/organization', organizationRouter);
   api.use('/items', itemsRouter);
   api.use('/customers', customersRouter);

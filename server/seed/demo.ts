@@ -2,6 +2,7 @@ import type { Role } from '../../shared/types';
 import { hashPassword } from '../commands/accounts';
 import { withTransaction } from '../db';
 import { Booking, BookingLine, Customer, Item, Organization, User } from '../models';
+import { ensureCompanyCertificate } from '../services/companyCertificate';
 import { quoteBooking } from '../services/pricing';
 import { demoCustomers, demoSeason, demoWindows, seededRandom } from './demoBookings';
 import { DEMO_STOCK } from './demoStock';
@@ -39,6 +40,7 @@ export async function seedDemo(): Promise<boolean> {
       },
       { transaction: t },
     );
+    await ensureCompanyCertificate(org.id, t);
     for (const u of DEMO_USERS) {
       await User.create({ organizationId: org.id, ...u, passwordHash, status: 'active' }, { transaction: t });
     }

@@ -14,6 +14,7 @@ const env = {
   API_PORT: apiPort,
   DATABASE_URL: process.env.DATABASE_URL ?? pg.url('guyline'),
   JWT_SECRET: process.env.JWT_SECRET ?? localSecret('jwt'),
+  SIGNING_KEY_SECRET: process.env.SIGNING_KEY_SECRET ?? localSecret('signing-key'),
   APP_URL: `http://localhost:${vitePort}`,
   SMTP_URL: 'smtp://127.0.0.1:2525',
   MAIL_SINK_URL: 'http://127.0.0.1:2526',

@@ -18,6 +18,7 @@ const env = {
   PORT: String(port),
   DATABASE_URL: process.env.DATABASE_URL ?? pg.url('guyline'),
   JWT_SECRET: process.env.JWT_SECRET ?? localSecret('jwt'),
+  SIGNING_KEY_SECRET: process.env.SIGNING_KEY_SECRET ?? localSecret('signing-key'),
   APP_URL: process.env.APP_URL ?? `http://localhost:${port}`,
   SMTP_URL: process.env.SMTP_URL ?? `smtp://127.0.0.1:${smtpPort}`,
   MAIL_SINK_URL: process.env.MAIL_SINK_URL ?? `http://127.0.0.1:${sinkHttpPort}`,

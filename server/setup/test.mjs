@@ -23,6 +23,7 @@ try {
     NODE_ENV: 'test',
     DATABASE_URL: pg.url('guyline_test'),
     JWT_SECRET: randomBytes(48).toString('base64url'),
+    SIGNING_KEY_SECRET: randomBytes(48).toString('base64url'),
     LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
     FAKES: 'on',
     CHROMIUM_PATH: chromium,

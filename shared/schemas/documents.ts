@@ -1,12 +1,17 @@
 import { z } from 'zod';
 
+/** The documents rendered from a template. */
 export const DOCUMENT_KINDS = ['rental_agreement', 'invoice', 'receipt', 'credit_note'] as const;
 export type DocumentKind = (typeof DOCUMENT_KINDS)[number];
-export const DOCUMENT_KIND_LABELS: Record<DocumentKind, string> = {
+/** Every kind a stored document can be: the templated ones and the customer's signed copy of an agreement. */
+export const STORED_DOCUMENT_KINDS = [...DOCUMENT_KINDS, 'signed_agreement'] as const;
+export type StoredDocumentKind = (typeof STORED_DOCUMENT_KINDS)[number];
+export const DOCUMENT_KIND_LABELS: Record<StoredDocumentKind, string> = {
   rental_agreement: 'Rental agreement',
   invoice: 'Invoice',
   receipt: 'Receipt',
   credit_note: 'Credit note',
+  signed_agreement: 'Signed rental agreement',
 };
 
 /** The templates a company can edit: the four documents and the e-mails that carry them. */
@@ -28,7 +33,7 @@ export interface DocumentSendRow {
 
 export interface DocumentRow {
   id: string;
-  kind: DocumentKind;
+  kind: StoredDocumentKind;
   number: string;
   version: number;
   status: 'issued' | 'replaced' | 'void';

@@ -59,6 +59,10 @@ export const CompanyRules = z.object({
     .default({ banquet: 8, rows: 6, standing: 5, mixed: 8 }),
   /** Seats at one banquet table when the table item does not say (8-ft: 4 a side and 1 at each end; common practice). */
   seatsPerBanquetTable: z.number().int().min(1).max(30).default(10),
+  /** A signing link works this many days. Default 14: common practice, no published source. */
+  signingLinkDays: z.number().int().min(1).max(90).default(14),
+  /** The customer can download the signed copy from the link this many days. Default 90: common practice. */
+  signedCopyDays: z.number().int().min(1).max(3650).default(90),
   /** Take tents down or evacuate at this sustained wind speed unless the manufacturer says lower (common practice, no published source). */
   windLimitMph: z.number().int().min(10).max(150).default(40),
 });
