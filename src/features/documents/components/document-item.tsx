@@ -5,6 +5,8 @@ import { Badge } from '@/components/ui/badge';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { linkClasses } from '@/components/ui/text-link';
 import { formatZoned } from '@/lib/zoned-time';
+import { IntegrityCheck } from '@/features/signing/components/integrity-check';
+import { SignaturePanel } from '@/features/signing/components/signature-panel';
 import { documentPdfInlineUrl, documentPdfUrl } from '../api/get-document-pdf';
 import { CopyButton } from './copy-button';
 import { DOCUMENT_STATUS_LABELS, DOCUMENT_STATUS_TONES, documentName, shortHash } from './document-labels';
@@ -50,6 +52,7 @@ export function DocumentItem({ document: d, customerEmail, timeZone }: DocumentI
           <CopyButton text={d.sha256} label={`Copy the SHA-256 of ${name}`} />
         </dd>
       </dl>
+      <IntegrityCheck documentId={d.id} name={name} />
 
       <div className="mt-3 flex flex-wrap gap-2">
         <Button size="sm" variant="secondary" aria-expanded={previewing} aria-controls={previewing ? previewId : undefined} onClick={() => setPreviewing((v) => !v)}>
@@ -88,6 +91,8 @@ export function DocumentItem({ document: d, customerEmail, timeZone }: DocumentI
       <div aria-live="polite">{notice ? <Alert tone="success" className="mt-3">{notice}</Alert> : null}</div>
 
       <DocumentSends sends={d.sends} timeZone={timeZone} label={`E-mails of ${name}`} />
+      {/* d.can.send is the server's "owner or office, on an issued document": the booking's can.issueDocuments for it. */}
+      {d.kind === 'rental_agreement' ? <SignaturePanel document={d} name={name} customerEmail={customerEmail} timeZone={timeZone} /> : null}
 
       {previewing ? (
         <div id={previewId} className="mt-3">
