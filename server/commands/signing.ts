@@ -170,6 +170,8 @@ export async function signAgreement(
     });
   } catch (err) {
     if (err instanceof SigningInputError) throw badRequest(err.message, { signatureImage: err.message });
+    // pdfkit's own PNG reader refuses a damaged image: the drawing, not the server, is at fault.
+    if (/PNG/i.test((err as Error).message)) throw badRequest('The signature drawing could not be read. Clear it and draw again.', { signatureImage: 'Could not be read.' });
     throw err;
   }
   const sha256 = createHash('sha256').update(signed).digest('hex');

@@ -236,7 +236,7 @@ signingRouter.post('/sign/:token/withdraw-consent', rateLimited, validate(TokenP
 signingRouter.post('/sign/:token', rateLimited, validate(TokenParams, 'params'), validate(SignRequest), async (req, res) => {
   const token = parsed<{ token: string }>(res, 'params').token;
   const input = parsed<z.output<typeof SignRequest>>(res);
-  await openRequest(token);
+  await openRequest(token, { allowSigned: true });
   let requestId: string | null = null;
   try {
     const signed = await withTransaction(async (t) => {
