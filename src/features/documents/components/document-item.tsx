@@ -52,7 +52,7 @@ export function DocumentItem({ document: d, customerEmail, timeZone }: DocumentI
           <CopyButton text={d.sha256} label={`Copy the SHA-256 of ${name}`} />
         </dd>
       </dl>
-      <IntegrityCheck documentId={d.id} name={name} />
+      <IntegrityCheck documentId={d.id} name={name} timeZone={timeZone} />
 
       <div className="mt-3 flex flex-wrap gap-2">
         <Button size="sm" variant="secondary" aria-expanded={previewing} aria-controls={previewing ? previewId : undefined} onClick={() => setPreviewing((v) => !v)}>

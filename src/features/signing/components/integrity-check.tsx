@@ -3,7 +3,7 @@ import type { VerifyResult } from '@shared/schemas/signing';
 import { Button } from '@/components/ui/button';
 import { LiveRegion } from '@/components/ui/alert';
 import { errorMessage } from '@/lib/api';
-import { formatDateTime } from '@/lib/format';
+import { formatZoned } from '@/lib/zoned-time';
 import { useVerifyDocument } from '../api/verify-document';
 
 function Line({ ok, children }: { ok: boolean; children: React.ReactNode }) {
@@ -45,7 +45,7 @@ function Verdict({ result }: { result: VerifyResult }) {
 }
 
 /** Hashes the stored file again (and checks a signed copy's signature) when asked, each time afresh. */
-export function IntegrityCheck({ documentId, name }: { documentId: string; name: string }) {
+export function IntegrityCheck({ documentId, name, timeZone }: { documentId: string; name: string; timeZone: string }) {
   const [asked, setAsked] = useState(false);
   const verify = useVerifyDocument(documentId, { enabled: asked });
   const checking = asked && verify.isFetching;
@@ -63,7 +63,7 @@ export function IntegrityCheck({ documentId, name }: { documentId: string; name:
         ) : verify.data ? (
           <div className="pt-1">
             <Verdict result={verify.data} />
-            <p className="mt-1 text-xs text-canvas-600">Checked {formatDateTime(new Date(verify.dataUpdatedAt).toISOString())}</p>
+            <p className="mt-1 text-xs text-canvas-600">Checked {formatZoned(new Date(verify.dataUpdatedAt).toISOString(), timeZone)}</p>
           </div>
         ) : null}
       </LiveRegion>

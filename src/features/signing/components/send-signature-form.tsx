@@ -65,7 +65,7 @@ export function SendSignatureForm({ documentId, name, customerEmail, pending, ti
       />
       <div className="flex flex-wrap gap-2">
         <Button type="submit" size="sm" isLoading={send.isPending}>
-          {send.isPending ? 'Sending…' : 'Send the link'}
+          {send.isPending ? 'Sending…' : 'E-mail the signing link'}
         </Button>
         <Button size="sm" variant="ghost" onClick={onCancel} disabled={send.isPending}>
           Cancel

@@ -21,6 +21,9 @@ import type { SignaturePadHandle } from './signature-pad-field';
 
 export const SIGNING_TITLE = 'Sign your rental agreement';
 
+const CHECK_FIELDS = 'Check the highlighted fields.';
+const INITIALS_MISSING = 'Write your initials in each box.';
+
 const focusFirstInvalid = (form: HTMLFormElement | null) =>
   requestAnimationFrame(() => form?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus());
 
@@ -61,6 +64,11 @@ export function SigningFlow({ token, page }: { token: string; page: SigningPage 
     window.scrollTo({ top: 0 });
     headingRef.current?.focus({ preventScroll: true });
   }, [step]);
+
+  // Once every highlighted field is put right, the summary above them goes too.
+  useEffect(() => {
+    if (Object.keys(errors).length === 0) setFormError((m) => (m === CHECK_FIELDS || m === INITIALS_MISSING ? null : m));
+  }, [errors]);
 
   const clauseKeys = page.clauses.filter((c) => c.requiresInitials).map((c) => c.key);
   const after = (s: SigningStep) => steps[steps.indexOf(s) + 1];
@@ -112,7 +120,7 @@ export function SigningFlow({ token, page }: { token: string; page: SigningPage 
     const found = checkInitials();
     setErrors(found);
     if (Object.keys(found).length > 0) {
-      setFormError('Write your initials in each box.');
+      setFormError(INITIALS_MISSING);
       focusFirstInvalid(initialsForm.current);
       return;
     }
@@ -133,7 +141,7 @@ export function SigningFlow({ token, page }: { token: string; page: SigningPage 
     const parsed = SignRequest.safeParse(body);
     const found: FieldErrors = parsed.success ? {} : zodFieldErrors(parsed.error);
     if (!typedOnly && !drawn) found.signatureImage = 'Draw your signature in the box, or tick the box below to sign with your typed name.';
-    if (Object.keys(found).length > 0) return showErrors(found, 'Check the highlighted fields.');
+    if (Object.keys(found).length > 0) return showErrors(found, CHECK_FIELDS);
 
     sign.mutate(
       { token, body },

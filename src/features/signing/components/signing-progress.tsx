@@ -18,16 +18,17 @@ export function SigningProgress({ steps, current }: { steps: readonly SigningSte
     <nav aria-label="Signing steps" className="mb-5">
       <ol className="flex items-start">
         {steps.map((step, index) => {
-          const state = index < at ? 'done' : index === at ? 'current' : 'upcoming';
+          // Reaching Done completes every step, Done included.
+          const state = index < at || (index === at && step === 'done') ? 'done' : index === at ? 'current' : 'upcoming';
           return (
-            <li key={step} aria-current={state === 'current' ? 'step' : undefined} className="relative flex flex-1 flex-col items-center text-center">
+            <li key={step} aria-current={index === at ? 'step' : undefined} className="relative flex flex-1 flex-col items-center text-center">
               {index > 0 ? (
                 <span aria-hidden="true" className={cn('absolute top-4 right-1/2 h-0.5 w-full -translate-y-1/2', index <= at ? 'bg-pine-600' : 'bg-canvas-300')} />
               ) : null}
               <span
                 aria-hidden="true"
                 className={cn(
-                  'relative flex size-8 items-center justify-center rounded-full text-sm font-bold ring-2',
+                  'relative z-10 flex size-8 items-center justify-center rounded-full text-sm font-bold ring-2',
                   state === 'done' && 'bg-pine-700 text-white ring-pine-700',
                   state === 'current' && 'bg-white text-pine-800 ring-pine-700',
                   state === 'upcoming' && 'bg-canvas-50 text-canvas-600 ring-canvas-300',
@@ -41,7 +42,7 @@ export function SigningProgress({ steps, current }: { steps: readonly SigningSte
                   index + 1
                 )}
               </span>
-              <span className={cn('mt-1 text-xs sm:text-sm', state === 'current' ? 'font-semibold text-canvas-900' : 'text-canvas-700')}>
+              <span className={cn('mt-1 text-xs sm:text-sm', index === at ? 'font-semibold text-canvas-900' : 'text-canvas-700')}>
                 <span className="sr-only">Step {index + 1}: </span>
                 {SIGNING_STEP_LABELS[step]}
                 <span className="sr-only">{state === 'done' ? ' (done)' : ''}</span>
