@@ -11,6 +11,7 @@ const TITLES: Record<string, string> = {
   link_void: 'This signing link was cancelled',
   link_replaced: 'A newer signing link was sent',
   link_used: 'This agreement is already signed',
+  link_declined: 'You chose not to sign electronically',
 };
 
 const ADVICE: Record<string, string> = {
@@ -19,13 +20,15 @@ const ADVICE: Record<string, string> = {
   link_void: 'The company cancelled this link, perhaps because the agreement changed. Ask them for a new one if you still need to sign.',
   link_replaced: 'Use the link in the most recent e-mail from the company. If you can’t find it, ask them to send it again.',
   link_used: 'Nothing more is needed here. Your signed copy was e-mailed to you; ask the company if you need another.',
+  link_declined: 'Contact the company to sign the agreement on paper, or to ask for a new link if you change your mind.',
 };
 
 /** The company from a 404/410 body, when the server knows which company the link was for. */
 function companyOf(error: unknown): Company | null {
   if (!isApiError(error)) return null;
-  const body = error.body as { error?: { company?: Partial<Company> | null } } | null;
-  const c = body?.error?.company;
+  // The server puts it beside `error` in the body; inside `error` is read too.
+  const body = error.body as { company?: Partial<Company> | null; error?: { company?: Partial<Company> | null } } | null;
+  const c = body?.company ?? body?.error?.company;
   return c && c.name ? { name: c.name, phone: c.phone ?? '', email: c.email ?? '' } : null;
 }
 

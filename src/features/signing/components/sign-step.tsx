@@ -70,7 +70,8 @@ export function SignStep(props: SignStepProps) {
         {stockGone ? (
           <Alert tone="danger" title="The agreement could not be signed.">
             <p>{stockGone}</p>
-            <p className="mt-2">{page.company.name} has been told and will be in touch. You can also contact them:</p>
+            {/* The server's message already says the company has been told. */}
+            <p className="mt-2">You can also contact {page.company.name} yourself:</p>
             <CompanyContact company={page.company} />
           </Alert>
         ) : null}
