@@ -190,9 +190,12 @@ export async function signAgreement(
   await request.save({ transaction });
   await audit({ organizationId: organization.id, actorUserId: null, action: 'signing.signed', subjectType: 'booking', subjectId: document.bookingId, data: { documentId: signedDoc.id, number: signedDoc.number, typedName: input.typedName, sha256 } }, req, transaction);
 
-  // The signed copy to the customer and to the company.
+  // The signed copy to the customer and to the company (its own address, or else its owners and office).
   const customer = (await Customer.findByPk(booking.customerId, { transaction }))!;
-  for (const to of new Set([request.sentTo, customer.email, organization.email].filter(Boolean))) {
+  const office = organization.email
+    ? [organization.email]
+    : (await User.findAll({ where: { organizationId: organization.id, role: { [Op.in]: ['owner', 'office'] }, status: 'active' }, transaction })).map((u) => u.email);
+  for (const to of new Set([request.sentTo, customer.email, ...office].filter(Boolean))) {
     const send = await DocumentSend.create({ organizationId: organization.id, documentId: signedDoc.id, to, requestedById: null }, { transaction });
     await queueJob('send-document', { sendId: send.id }, transaction);
   }

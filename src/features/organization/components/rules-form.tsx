@@ -33,6 +33,8 @@ function toValues(r: CompanyRules): Values {
     permitOpenSidedAreaSqFt: String(r.permitOpenSidedAreaSqFt),
     seatsPerBanquetTable: String(r.seatsPerBanquetTable),
     windLimitMph: String(r.windLimitMph),
+    signingLinkDays: String(r.signingLinkDays),
+    signedCopyDays: String(r.signedCopyDays),
     bands: String(r.deliveryBands.length),
   };
   for (const s of SEATING_STYLES) v[`sqFtPerGuest.${s}`] = numberToInput(r.sqFtPerGuest[s]);
@@ -52,7 +54,9 @@ function toInput(v: Values) {
   c.put('damageWaiverBp', parsePercent(v.damageWaiverBp, 2, 0));
   c.input.damageWaiverTaxable = v.damageWaiverTaxable === 'true';
   c.input.deliveryTaxable = v.deliveryTaxable === 'true';
-  for (const key of ['turnaroundHours', 'permitAreaSqFt', 'permitOpenSidedAreaSqFt', 'seatsPerBanquetTable', 'windLimitMph']) c.put(key, parseWhole(v[key], 0));
+  for (const key of ['turnaroundHours', 'permitAreaSqFt', 'permitOpenSidedAreaSqFt', 'seatsPerBanquetTable', 'windLimitMph', 'signingLinkDays', 'signedCopyDays']) {
+    c.put(key, parseWhole(v[key], 0));
+  }
   const sq = collector();
   for (const s of SEATING_STYLES) sq.put(s, parseDecimal(v[`sqFtPerGuest.${s}`], null));
   c.input.sqFtPerGuest = sq.input;
@@ -191,6 +195,23 @@ export function RulesForm({ rules }: { rules: RulesResponse }) {
             inputMode="numeric"
             hint="Take tents down or clear them at this sustained wind. When a tent maker rates a tent lower, follow the manufacturer’s rating."
             {...form.field('windLimitMph')}
+          />
+        </fieldset>
+        <fieldset className="space-y-4">
+          <Legend>Signing online</Legend>
+          <TextField
+            className="max-w-xs"
+            label="Signing link works for (days)"
+            inputMode="numeric"
+            hint="After this many days the customer needs a new link."
+            {...form.field('signingLinkDays')}
+          />
+          <TextField
+            className="max-w-xs"
+            label="Signed copy can be downloaded for (days)"
+            inputMode="numeric"
+            hint="How long the customer's link keeps offering the signed PDF. It was also e-mailed to them."
+            {...form.field('signedCopyDays')}
           />
         </fieldset>
       </fieldset>
