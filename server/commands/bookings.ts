@@ -9,6 +9,7 @@ import { checkAvailability, recordShortfalls } from '../services/availability';
 import { quoteBooking } from '../services/pricing';
 import { rulesOf } from '../services/rules';
 import { audit } from './audit';
+import { reissueChangedDocuments } from './documents';
 
 /** A 409 that names every short item; the route turns it into `{ error, shortfalls }`. */
 export class ShortfallError extends HttpError {
@@ -145,6 +146,8 @@ export async function updateBooking(actor: User, booking: Booking, values: Booki
   await booking.save({ transaction });
   const lines = await writeLines(booking, values, transaction);
   await storeTotal(booking, lines, customer, organization, transaction);
+  // Issued agreements and invoices follow the booking: a changed one gets a new version.
+  await reissueChangedDocuments(actor, booking.id, req, transaction);
   await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'booking.updated', subjectType: 'booking', subjectId: booking.id, data: { changed, lines: lines.length } }, req, transaction);
   return booking;
 }

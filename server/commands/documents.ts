@@ -4,7 +4,7 @@ import type { DocumentKind } from '../../shared/schemas/documents';
 import { bookingDocumentValues, renderDocument } from '../documents';
 import type { Transaction } from '../db';
 import { conflict } from '../errors';
-import { Booking, BookingLine, Customer, Document, DocumentSend, Item, Organization, type User } from '../models';
+import { Booking, BookingLine, Customer, Document, DocumentSend, Item, Organization, SigningEvent, SigningRequest, type User } from '../models';
 import { presentBooking } from '../presenters/booking';
 import { activeClauses, occupancyOf, templateNameFor, templateSource } from '../services/documents';
 import { queueJob } from '../services/jobs';
@@ -104,6 +104,13 @@ export async function issueDocument(
     previous.status = 'replaced';
     previous.replacedById = document.id;
     await previous.save({ transaction });
+    // A signing link for the old version must not sign it any more.
+    const pending = await SigningRequest.findAll({ where: { documentId: previous.id, status: 'pending' }, transaction, lock: transaction.LOCK.UPDATE });
+    for (const r of pending) {
+      r.status = 'replaced';
+      await r.save({ transaction });
+      await SigningEvent.create({ organizationId: r.organizationId, signingRequestId: r.id, event: 'replaced', ip: req.ip ?? null, userAgent: (req.get('user-agent') ?? '').slice(0, 400) || null, detail: `by ${number}` }, { transaction });
+    }
   }
   await audit(
     { organizationId: actor.organizationId, actorUserId: actor.id, action: 'document.issued', subjectType: 'booking', subjectId: booking.id, data: { documentId: document.id, kind, number, version, sha256: rendered.sha256, replaced: previous?.number ?? null } },
@@ -137,4 +144,56 @@ export async function sendDocument(actor: User, document: Document, to: string, 
     transaction,
   );
   return { send, duplicate: false };
+}
+
+/** JSON with keys in a fixed order: stored values come back from JSONB with their keys reordered. */
+function stable(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(stable).join(',')}]`;
+  if (value && typeof value === 'object') {
+    return `{${Object.keys(value).sort().map((k) => `${JSON.stringify(k)}:${stable((value as Record<string, unknown>)[k])}`).join(',')}}`;
+  }
+  return JSON.stringify(value);
+}
+
+/**
+ * What a document says, without its own number, version and date, nor the due dates counted from
+ * the day it was issued: equal when nothing the customer reads about the booking changed.
+ */
+function substance(values: Record<string, unknown>) {
+  const { document: _document, schedule, ...rest } = values;
+  const amounts = Array.isArray(schedule) ? schedule.map((e) => ({ ...(e as object), dueDate: undefined })) : schedule;
+  return stable({ ...rest, schedule: amounts });
+}
+
+/**
+ * After a booking is edited: each current agreement or invoice whose content would now read
+ * differently is issued again as a new version (the old one becomes replaced). Unchanged ones stay.
+ */
+export async function reissueChangedDocuments(actor: User, bookingId: string, req: Request, transaction: Transaction) {
+  const current = await Document.findAll({ where: { bookingId, status: 'issued', kind: ['rental_agreement', 'invoice'] }, transaction });
+  if (current.length === 0) return [];
+  const booking = (await Booking.findOne({
+    where: { id: bookingId, organizationId: actor.organizationId },
+    include: [
+      { model: Customer, as: 'customer' },
+      { model: BookingLine, as: 'lines', include: [{ model: Item, as: 'item', attributes: ['id', 'kind'] }] },
+    ],
+    transaction,
+  })) as (Booking & { customer: Customer; lines: BookingLine[] }) | null;
+  if (!booking || booking.lines.length === 0) return [];
+  const organization = (await Organization.findByPk(actor.organizationId, { transaction }))!;
+  const reissued: Document[] = [];
+  for (const doc of current) {
+    const now = bookingDocumentValues({
+      booking: presentBooking(booking, actor, organization),
+      organization,
+      rules: rulesOf(organization),
+      document: { kind: doc.kind as DocumentKind, number: doc.number, version: doc.version, issuedAt: doc.issuedAt },
+      occupancy: await occupancyOf(actor.organizationId, booking.lines, booking.seating, transaction),
+    });
+    if (substance(now as unknown as Record<string, unknown>) !== substance(doc.values)) {
+      reissued.push(await issueDocument(actor, bookingId, doc.kind as DocumentKind, req, transaction));
+    }
+  }
+  return reissued;
 }

@@ -1,3 +1,4 @@
+import { Account } from './Account';
 import { AuditLog } from './AuditLog';
 import { AuthToken } from './AuthToken';
 import { Booking } from './Booking';
@@ -8,6 +9,8 @@ import { Document } from './Document';
 import { DocumentSend } from './DocumentSend';
 import { DocumentTemplate } from './DocumentTemplate';
 import { Item } from './Item';
+import { JournalEntry } from './JournalEntry';
+import { JournalLine } from './JournalLine';
 import { Organization } from './Organization';
 import { Session } from './Session';
 import { Shortfall } from './Shortfall';
@@ -29,8 +32,10 @@ Document.belongsTo(Booking, { foreignKey: 'bookingId', as: 'booking' });
 Document.hasMany(DocumentSend, { foreignKey: 'documentId', as: 'sends' });
 SigningRequest.hasMany(SigningEvent, { foreignKey: 'signingRequestId', as: 'events' });
 SigningRequest.belongsTo(Document, { foreignKey: 'documentId', as: 'document' });
+JournalEntry.hasMany(JournalLine, { foreignKey: 'entryId', as: 'lines' });
+JournalLine.belongsTo(Account, { foreignKey: 'accountId', as: 'account' });
 
 export {
-  AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item,
+  Account, AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, JournalEntry, JournalLine,
   Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,
 };

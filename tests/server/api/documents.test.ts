@@ -162,3 +162,24 @@ describe('templates and clauses', () => {
     expect(stored!.markdown).toContain(`Pets stay outside the tent at ${booking.reference}.`);
   });
 });
+
+describe('editing a booking after its documents were issued', () => {
+  it('issues a new version of the agreement when what it says changed, and none when nothing did', async () => {
+    const { office, organization } = await buildCompany();
+    const { client: o, booking } = await bookingFor(office, organization.id);
+    const first = (await o.post(`/api/bookings/${booking.id}/agreement`)).body;
+    const put = (body: Record<string, unknown>) => o.agent.put(`/api/bookings/${booking.id}`).set('X-CSRF-Token', o.csrf).set('X-Forwarded-For', o.ip).send(body);
+    const same = {
+      customerId: booking.customer.id, eventStart: booking.eventStart, eventEnd: booking.eventEnd, deliveryStart: booking.deliveryStart,
+      deliveryEnd: booking.deliveryEnd, pickupStart: booking.pickupStart, pickupEnd: booking.pickupEnd, taxRateBp: 725, damageWaiver: false,
+      lines: booking.lines.map((l: Record<string, unknown>) => ({ itemId: l.itemId, description: l.description, quantity: l.quantity, unitPriceCents: l.unitPriceCents, taxable: l.taxable, kind: l.kind })),
+    };
+    expect((await put(same)).status).toBe(200);
+    expect(await Document.count({ where: { bookingId: booking.id, kind: 'rental_agreement' } })).toBe(1);
+    expect((await put({ ...same, guestCount: 30, siteNotes: 'Gate is 9 ft wide' })).status).toBe(200);
+    const versions = await Document.findAll({ where: { bookingId: booking.id, kind: 'rental_agreement' }, order: [['version', 'ASC']] });
+    expect(versions.map((d) => `${d.version}:${d.status}`)).toEqual(['1:replaced', '2:issued']);
+    expect(versions[0].id).toBe(first.id);
+    expect(versions[1].markdown).toContain('Gate is 9 ft wide');
+  });
+});
