@@ -17,6 +17,10 @@ let status = 1;
 try {
   // SKIP_CLIENT_BUILD=1 reuses the last build while iterating on server code (never in CI).
   if (process.env.SKIP_CLIENT_BUILD !== '1' || process.env.CI) ensureClientBuild();
+  // The type check is a test too: a type error fails the run before any test starts.
+  say('Type-checking (tsc --noEmit)...');
+  const tsc = spawnSync(path.join(root, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', 'tsconfig.json'], { cwd: root, stdio: 'inherit' });
+  if (tsc.status !== 0) throw new Error('The type check failed; see the lines above.');
   const report = path.join(root, '.data', 'vitest-report.json');
   const env = {
     ...process.env,
@@ -40,6 +44,9 @@ try {
     console.log(`${j.numPassedTests} passed, ${j.numFailedTests} failed` + (j.numPendingTests ? `, ${j.numPendingTests} skipped` : ''));
     if (j.numTotalTests === 0) status = status || 1;
   }
+} catch (err) {
+  console.error(`[guyline] ${err.message}`);
+  status = 1;
 } finally {
   if (pg.startedHere) pg.stop();
 }
