@@ -7,6 +7,7 @@
  * Sides, for readers who are not bookkeepers: assets and contra revenue grow with debits;
  * liabilities and revenue grow with credits. Accounts receivable (AR) is what customers owe us.
  */
+import { dateInZone } from '../../shared/dates';
 import { subtract, sum } from '../../shared/money';
 import type { RevenueKey, SystemKey } from './chart';
 
@@ -192,4 +193,12 @@ export function securityDepositApplied(amountCents: number, to: 'damage' | 'invo
       { account: to === 'damage' ? 'damage_recovery' : 'accounts_receivable', creditCents: amountCents },
     ],
   };
+}
+
+/**
+ * Before or on/after the event, by calendar day in the company's zone: an invoice dated the
+ * evening before a morning event is still billed in advance.
+ */
+export function eventTiming(eventStart: Date, at: Date, timeZone: string): EventTiming {
+  return dateInZone(at, timeZone) < dateInZone(eventStart, timeZone) ? 'before_event' : 'on_or_after_event';
 }
