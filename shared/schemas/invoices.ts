@@ -1,0 +1,130 @@
+import { z } from 'zod';
+import { PAYMENT_METHODS } from './documents';
+
+export const INVOICE_KINDS = ['deposit', 'balance', 'additional', 'credit_note'] as const;
+export type InvoiceKind = (typeof INVOICE_KINDS)[number];
+export const INVOICE_KIND_LABELS: Record<InvoiceKind, string> = {
+  deposit: 'Deposit invoice',
+  balance: 'Balance invoice',
+  additional: 'Additional charges',
+  credit_note: 'Credit note',
+};
+export const INVOICE_STATUSES = ['draft', 'open', 'partly_paid', 'paid', 'void'] as const;
+export type InvoiceStatus = (typeof INVOICE_STATUSES)[number];
+export const INVOICE_STATUS_LABELS: Record<InvoiceStatus, string> = {
+  draft: 'Draft',
+  open: 'Open',
+  partly_paid: 'Partly paid',
+  paid: 'Paid',
+  void: 'Void',
+};
+
+/** Where an invoice line's money belongs in the ledger. */
+export const INVOICE_CATEGORIES = ['rental', 'delivery_labor', 'damage_waiver', 'damage', 'tax'] as const;
+export type InvoiceCategory = (typeof INVOICE_CATEGORIES)[number];
+
+export interface InvoiceLineRow {
+  description: string;
+  category: InvoiceCategory;
+  amountCents: number;
+}
+
+export interface InvoiceRow {
+  id: string;
+  bookingId: string;
+  bookingReference: string;
+  customer: { id: string; name: string; email: string };
+  kind: InvoiceKind;
+  /** Null while a draft: numbers are given at issue, in order, never reused. */
+  number: string | null;
+  status: InvoiceStatus;
+  issueDate: string | null;
+  dueDate: string | null;
+  overdue: boolean;
+  lines: InvoiceLineRow[];
+  subtotalCents: number;
+  taxCents: number;
+  totalCents: number;
+  paidCents: number;
+  balanceCents: number;
+  currency: string;
+  documentId: string | null;
+  voidReason: string | null;
+  createdAt: string;
+  can: { issue: boolean; void: boolean; recordPayment: boolean };
+}
+
+export const CreateInvoiceRequest = z.object({
+  kind: z.enum(['deposit', 'balance'], { error: 'Choose a deposit or a balance invoice.' }),
+});
+export type CreateInvoiceRequest = z.input<typeof CreateInvoiceRequest>;
+
+export const VoidInvoiceRequest = z.object({
+  reason: z.string({ error: 'Say why the invoice is void.' }).trim().min(3, 'Say why the invoice is void.').max(500),
+});
+
+export const InvoiceListQuery = z.object({
+  page: z.coerce.number().int().min(1, 'Pages start at 1.').default(1),
+  pageSize: z.coerce.number().int().min(1).max(200, 'At most 200 a page.').default(50),
+  status: z
+    .string()
+    .optional()
+    .transform((s) => (s ? s.split(',').filter(Boolean) : undefined))
+    .pipe(z.array(z.enum([...INVOICE_STATUSES, 'overdue'] as const, { error: 'Unknown status.' })).optional()),
+  bookingId: z.uuid().optional(),
+  q: z.string().trim().max(100).optional(),
+});
+export type InvoiceListQuery = z.infer<typeof InvoiceListQuery>;
+
+export const OFFLINE_METHODS = PAYMENT_METHODS.filter((m) => m !== 'card') as ['cash', 'check', 'transfer'];
+
+/** POST /api/payments: cash, check or transfer, on one invoice or split across several. */
+export const RecordPaymentRequest = z
+  .object({
+    method: z.enum(['cash', 'check', 'transfer'], { error: 'Choose cash, check or transfer.' }),
+    reference: z.string().trim().max(80, 'Use at most 80 characters.').default(''),
+    receivedAt: z.iso.datetime({ offset: true, error: 'Enter when it was received.' }).optional(),
+    /** One invoice… */
+    invoiceId: z.uuid({ error: 'Choose an invoice.' }).optional(),
+    amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00).optional(),
+    /** …or split across several. */
+    allocations: z
+      .array(z.object({ invoiceId: z.uuid({ error: 'Choose an invoice.' }), amountCents: z.number().int().min(1, 'Each part must be above zero.').max(100_000_000_00) }))
+      .max(50)
+      .optional(),
+  })
+  .refine((v) => (v.invoiceId && v.amountCents) || (v.allocations && v.allocations.length > 0), {
+    message: 'Give an invoice and an amount, or split the payment across invoices.',
+    path: ['amountCents'],
+  });
+export type RecordPaymentRequest = z.input<typeof RecordPaymentRequest>;
+
+export interface PaymentRow {
+  id: string;
+  bookingId: string;
+  method: 'cash' | 'check' | 'transfer' | 'card';
+  amountCents: number;
+  reference: string;
+  receivedAt: string;
+  allocations: { invoiceId: string; invoiceNumber: string | null; amountCents: number }[];
+  receiptDocumentId: string | null;
+  recordedBy: string | null;
+}
+
+export interface LedgerEntryRow {
+  id: string;
+  occurredAt: string;
+  kind: string;
+  memo: string;
+  lines: { accountCode: string; accountName: string; debitCents: number; creditCents: number }[];
+}
+
+/** GET /api/bookings/:id/ledger */
+export interface BookingLedger {
+  entries: LedgerEntryRow[];
+  /** What the customer owes on the booking (accounts receivable). */
+  balanceCents: number;
+  invoicedCents: number;
+  paidCents: number;
+  securityDepositHeldCents: number;
+}
