@@ -4,7 +4,7 @@ import type { DocumentKind } from '../../shared/schemas/documents';
 import { bookingDocumentValues, renderDocument } from '../documents';
 import type { Transaction } from '../db';
 import { conflict } from '../errors';
-import { Booking, BookingLine, Customer, Document, DocumentSend, Item, Organization, SigningEvent, SigningRequest, type User } from '../models';
+import { Booking, BookingLine, Customer, Document, DocumentSend, Invoice, Item, Organization, SigningEvent, SigningRequest, type User } from '../models';
 import { presentBooking } from '../presenters/booking';
 import { activeClauses, occupancyOf, templateNameFor, templateSource } from '../services/documents';
 import { queueJob } from '../services/jobs';
@@ -34,7 +34,12 @@ export async function issueDocument(
   kind: DocumentKind,
   req: Request,
   transaction: Transaction,
-  extra: { payment?: PaymentDetails; credit?: { amountCents: number; reason: string } } = {},
+  extra: {
+    payment?: PaymentDetails;
+    credit?: { amountCents: number; reason: string };
+    /** An invoice record's own number and amount due (its PDF is its own document, never a version of another). */
+    invoice?: { number: string; schedule: { label: string; dueDate: string; amount: string }[] };
+  } = {},
 ) {
   // Locking the booking serializes two people issuing at once: versions stay 1, 2, 3...
   const booking = (await Booking.findOne({
@@ -50,13 +55,24 @@ export async function issueDocument(
   if (booking.lines.length === 0) throw conflict('Add lines to the booking before issuing documents.', 'empty_booking');
   const organization = (await Organization.findByPk(actor.organizationId, { transaction, lock: transaction.LOCK.UPDATE }))!;
 
-  const previous = VERSIONED[kind]
-    ? await Document.findOne({ where: { bookingId: booking.id, kind, status: 'issued' }, order: [['version', 'DESC']], transaction })
+  const versioned = VERSIONED[kind] && !extra.invoice;
+  // The PDFs of invoice records are their own documents: never replaced by a new version of the booking's invoice.
+  const invoiceRecordDocs = (await Invoice.findAll({ where: { bookingId: booking.id }, attributes: ['documentId'], transaction }))
+    .map((i) => i.documentId)
+    .filter((x): x is string => !!x);
+  const previous = versioned
+    ? await Document.findOne({
+        where: { bookingId: booking.id, kind, status: 'issued', ...(invoiceRecordDocs.length ? { id: { [Op.notIn]: invoiceRecordDocs } } : {}) },
+        order: [['version', 'DESC']],
+        transaction,
+      })
     : null;
   const lastVersion = ((await Document.max('version', { where: { bookingId: booking.id, kind }, transaction })) as number | null) ?? 0;
   const version = lastVersion + 1;
   let base: string;
-  if (kind === 'invoice') {
+  if (extra.invoice) {
+    base = extra.invoice.number;
+  } else if (kind === 'invoice') {
     const first = await Document.findOne({ where: { bookingId: booking.id, kind, version: 1 }, transaction });
     if (first) base = first.number;
     else {
@@ -68,7 +84,7 @@ export async function issueDocument(
     base = `${PREFIX[kind]}-${booking.reference}`;
   }
   // Receipts and credit notes are numbered in sequence on the booking: RCT-B-1001-1, -2...
-  const number = !VERSIONED[kind] ? `${base}-${version}` : version === 1 ? base : `${base}-${version}`;
+  const number = extra.invoice ? base : !VERSIONED[kind] ? `${base}-${version}` : version === 1 ? base : `${base}-${version}`;
   const issuedAt = new Date();
   // Only roles that see prices may issue documents, so the actor's view of the booking is the priced one.
   const row = presentBooking(booking, actor, organization);
@@ -81,6 +97,7 @@ export async function issueDocument(
     payment: extra.payment,
     credit: extra.credit,
   });
+  if (extra.invoice) values.schedule = extra.invoice.schedule;
   const { source } = await templateSource(actor.organizationId, templateNameFor(kind), transaction);
   const rendered = await renderDocument({
     template: source,
@@ -170,7 +187,13 @@ function substance(values: Record<string, unknown>) {
  * differently is issued again as a new version (the old one becomes replaced). Unchanged ones stay.
  */
 export async function reissueChangedDocuments(actor: User, bookingId: string, req: Request, transaction: Transaction) {
-  const current = await Document.findAll({ where: { bookingId, status: 'issued', kind: ['rental_agreement', 'invoice'] }, transaction });
+  const invoiceRecordDocs = (await Invoice.findAll({ where: { bookingId }, attributes: ['documentId'], transaction }))
+    .map((i) => i.documentId)
+    .filter((x): x is string => !!x);
+  // An issued invoice record is never re-issued: it is corrected by a credit note.
+  const current = (await Document.findAll({ where: { bookingId, status: 'issued', kind: ['rental_agreement', 'invoice'] }, transaction })).filter(
+    (d) => !invoiceRecordDocs.includes(d.id),
+  );
   if (current.length === 0) return [];
   const booking = (await Booking.findOne({
     where: { id: bookingId, organizationId: actor.organizationId },

@@ -8,10 +8,12 @@ import { Customer } from './Customer';
 import { Document } from './Document';
 import { DocumentSend } from './DocumentSend';
 import { DocumentTemplate } from './DocumentTemplate';
+import { Invoice } from './Invoice';
 import { Item } from './Item';
 import { JournalEntry } from './JournalEntry';
 import { JournalLine } from './JournalLine';
 import { Organization } from './Organization';
+import { Payment, PaymentAllocation } from './Payment';
 import { Session } from './Session';
 import { Shortfall } from './Shortfall';
 import { SigningEvent } from './SigningEvent';
@@ -36,6 +38,7 @@ JournalEntry.hasMany(JournalLine, { foreignKey: 'entryId', as: 'lines' });
 JournalLine.belongsTo(Account, { foreignKey: 'accountId', as: 'account' });
 
 export {
+  Invoice, Payment, PaymentAllocation,
   Account, AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, JournalEntry, JournalLine,
   Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,
 };

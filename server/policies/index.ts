@@ -5,11 +5,12 @@ import type { User } from '../models';
 import { bookingPolicy } from './booking';
 import { customerPolicy } from './customer';
 import { documentPolicy } from './document';
+import { invoicePolicy } from './invoice';
 import { itemPolicy } from './item';
 import { organizationPolicy } from './organization';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */
@@ -42,6 +43,7 @@ export function sameOrganization<T extends { organizationId: string } | null>(ac
 /** The parts of the app a user may open; the client builds its navigation from this list. */
 export function areasFor(user: User): Area[] {
   const areas: Area[] = ['dashboard', 'bookings', 'customers', 'catalog'];
+  if (invoicePolicy.read(user)) areas.push('invoices');
   if (userPolicy.list(user)) areas.push('users');
   if (user.role === 'owner') areas.push('settings');
   if (env.FAKES === 'on') areas.push('devInbox');

@@ -4,6 +4,7 @@ import { authRouter } from './auth';
 import { bookingsRouter } from './bookings';
 import { customersRouter } from './customers';
 import { documentsRouter } from './documents';
+import { invoicesRouter } from './invoices';
 import { signingRouter } from './signing';
 import { itemsRouter } from './items';
 import { planningRouter } from './planning';
@@ -19,6 +20,7 @@ export function apiRouter() {
   api.use('/', planningRouter);
   api.use('/', documentsRouter);
   api.use('/', signingRouter);
+  api.use('/', invoicesRouter);
   api.use('/organization', organizationRouter);
   api.use('/items', itemsRouter);
   api.use('/customers', customersRouter);

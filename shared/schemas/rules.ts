@@ -59,6 +59,8 @@ export const CompanyRules = z.object({
     .default({ banquet: 8, rows: 6, standing: 5, mixed: 8 }),
   /** Seats at one banquet table when the table item does not say (8-ft: 4 a side and 1 at each end; common practice). */
   seatsPerBanquetTable: z.number().int().min(1).max(30).default(10),
+  /** Invoice numbers read PREFIX-YEAR-NUMBER, e.g. INV-2027-0001. */
+  invoicePrefix: z.string().trim().min(1).max(8).regex(/^[A-Z0-9]+$/, 'Use capital letters and digits.').default('INV'),
   /** A signing link works this many days. Default 14: common practice, no published source. */
   signingLinkDays: z.number().int().min(1).max(90).default(14),
   /** The customer can download the signed copy from the link this many days. Default 90: common practice. */

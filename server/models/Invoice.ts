@@ -1,0 +1,61 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import type { InvoiceKind, InvoiceLineRow, InvoiceStatus } from '../../shared/schemas/invoices';
+import { sequelize } from '../db';
+
+/** A bill to the customer. Amounts are split by where they belong, so the ledger entry follows from them. */
+export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttributes<Invoice>> {
+  declare id: CreationOptional<string>;
+  declare organizationId: string;
+  declare bookingId: string;
+  declare customerId: string;
+  declare kind: InvoiceKind;
+  declare number: CreationOptional<string | null>;
+  declare status: CreationOptional<InvoiceStatus>;
+  declare issueDate: CreationOptional<string | null>;
+  declare dueDate: CreationOptional<string | null>;
+  declare lines: InvoiceLineRow[];
+  declare rentalCents: number;
+  declare deliveryLaborCents: number;
+  declare damageWaiverCents: number;
+  declare damageCents: CreationOptional<number>;
+  declare taxCents: number;
+  declare totalCents: number;
+  declare paidCents: CreationOptional<number>;
+  declare documentId: CreationOptional<string | null>;
+  declare ledgerEntryId: CreationOptional<string | null>;
+  declare voidReason: CreationOptional<string | null>;
+  declare createdById: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+const cents = { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 };
+
+Invoice.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    organizationId: { type: DataTypes.UUID, allowNull: false },
+    bookingId: { type: DataTypes.UUID, allowNull: false },
+    customerId: { type: DataTypes.UUID, allowNull: false },
+    kind: { type: DataTypes.ENUM('deposit', 'balance', 'additional', 'credit_note'), allowNull: false },
+    number: { type: DataTypes.STRING(40), allowNull: true },
+    status: { type: DataTypes.ENUM('draft', 'open', 'partly_paid', 'paid', 'void'), allowNull: false, defaultValue: 'draft' },
+    issueDate: { type: DataTypes.DATEONLY, allowNull: true },
+    dueDate: { type: DataTypes.DATEONLY, allowNull: true },
+    lines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+    rentalCents: cents,
+    deliveryLaborCents: cents,
+    damageWaiverCents: cents,
+    damageCents: cents,
+    taxCents: cents,
+    totalCents: cents,
+    paidCents: cents,
+    documentId: { type: DataTypes.UUID, allowNull: true },
+    ledgerEntryId: { type: DataTypes.UUID, allowNull: true },
+    voidReason: { type: DataTypes.STRING(500), allowNull: true },
+    createdById: { type: DataTypes.UUID, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: 'invoices', modelName: 'Invoice' },
+);

@@ -1,0 +1,48 @@
+import type { InvoiceRow, PaymentRow } from '../../shared/schemas/invoices';
+import type { Booking, Customer, Invoice, Payment, PaymentAllocation, User } from '../models';
+import { can } from '../policies';
+
+export function presentInvoice(invoice: Invoice, actor: User, extra: { booking: Pick<Booking, 'reference'>; customer: Pick<Customer, 'id' | 'name' | 'email'>; currency: string; today: string }): InvoiceRow {
+  const balance = invoice.status === 'void' ? 0 : invoice.totalCents - invoice.paidCents;
+  return {
+    id: invoice.id,
+    bookingId: invoice.bookingId,
+    bookingReference: extra.booking.reference,
+    customer: { id: extra.customer.id, name: extra.customer.name, email: extra.customer.email },
+    kind: invoice.kind,
+    number: invoice.number ?? null,
+    status: invoice.status,
+    issueDate: invoice.issueDate ?? null,
+    dueDate: invoice.dueDate ?? null,
+    overdue: ['open', 'partly_paid'].includes(invoice.status) && !!invoice.dueDate && invoice.dueDate < extra.today,
+    lines: invoice.lines,
+    subtotalCents: invoice.totalCents - invoice.taxCents,
+    taxCents: invoice.taxCents,
+    totalCents: invoice.totalCents,
+    paidCents: invoice.paidCents,
+    balanceCents: balance,
+    currency: extra.currency,
+    documentId: invoice.documentId ?? null,
+    voidReason: invoice.voidReason ?? null,
+    createdAt: invoice.createdAt.toISOString(),
+    can: {
+      issue: can(actor, 'invoice', 'issue', invoice),
+      void: can(actor, 'invoice', 'void', invoice),
+      recordPayment: can(actor, 'invoice', 'recordPayment', invoice),
+    },
+  };
+}
+
+export function presentPayment(payment: Payment, allocations: (PaymentAllocation & { number: string | null })[], recordedBy: string | null): PaymentRow {
+  return {
+    id: payment.id,
+    bookingId: payment.bookingId,
+    method: payment.method,
+    amountCents: payment.amountCents,
+    reference: payment.reference,
+    receivedAt: payment.receivedAt.toISOString(),
+    allocations: allocations.map((a) => ({ invoiceId: a.invoiceId, invoiceNumber: a.number, amountCents: a.amountCents })),
+    receiptDocumentId: payment.receiptDocumentId ?? null,
+    recordedBy,
+  };
+}

@@ -1,0 +1,149 @@
+import { Router } from 'express';
+import { Op, QueryTypes, type WhereOptions } from 'sequelize';
+import { z } from 'zod';
+import { dateInZone } from '../../../shared/dates';
+import { IdParams } from '../../../shared/schemas/common';
+import {
+  CreateInvoiceRequest, InvoiceListQuery, RecordPaymentRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
+} from '../../../shared/schemas/invoices';
+import { createInvoice, issueInvoice, recordPayment, voidInvoice } from '../../commands/invoices';
+import { sequelize, withTransaction } from '../../db';
+import { bookingBalance, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
+import { auth, authenticate } from '../../middlewares/authenticate';
+import { parsed, validate } from '../../middlewares/validate';
+import { Booking, Customer, Invoice, Payment, PaymentAllocation, User, type Organization } from '../../models';
+import { authorize, sameOrganization } from '../../policies';
+import { presentInvoice, presentPayment } from '../../presenters/invoice';
+
+export const invoicesRouter = Router();
+
+async function presentMany(invoices: Invoice[], actor: User, organization: Organization) {
+  const bookings = new Map((await Booking.findAll({ where: { id: { [Op.in]: [...new Set(invoices.map((i) => i.bookingId))] } }, attributes: ['id', 'reference'] })).map((b) => [b.id, b]));
+  const customers = new Map((await Customer.findAll({ where: { id: { [Op.in]: [...new Set(invoices.map((i) => i.customerId))] } }, attributes: ['id', 'name', 'email'] })).map((c) => [c.id, c]));
+  const today = dateInZone(new Date(), organization.timeZone);
+  return invoices.map((i) => presentInvoice(i, actor, { booking: bookings.get(i.bookingId)!, customer: customers.get(i.customerId)!, currency: organization.currency, today }));
+}
+
+invoicesRouter.get('/invoices', authenticate, validate(InvoiceListQuery, 'query'), async (req, res) => {
+  const { user, organization } = auth(req);
+  authorize(user, 'invoice', 'read');
+  const q = parsed<InvoiceListQuery>(res, 'query');
+  const where: WhereOptions = { organizationId: user.organizationId };
+  const today = dateInZone(new Date(), organization.timeZone);
+  if (q.status?.length) {
+    const plain = q.status.filter((s) => s !== 'overdue');
+    const anyOf: WhereOptions[] = [];
+    if (plain.length) anyOf.push({ status: { [Op.in]: plain } });
+    if (q.status.includes('overdue')) anyOf.push({ status: { [Op.in]: ['open', 'partly_paid'] }, dueDate: { [Op.lt]: today } });
+    Object.assign(where, { [Op.or]: anyOf });
+  }
+  if (q.bookingId) Object.assign(where, { bookingId: q.bookingId });
+  if (q.q) {
+    const like = `%${q.q}%`;
+    const bookingIds = (await Booking.findAll({ where: { organizationId: user.organizationId, reference: { [Op.iLike]: like } }, attributes: ['id'] })).map((b) => b.id);
+    const customerIds = (await Customer.findAll({ where: { organizationId: user.organizationId, name: { [Op.iLike]: like } }, attributes: ['id'] })).map((c) => c.id);
+    Object.assign(where, { [Op.and]: [{ [Op.or]: [{ number: { [Op.iLike]: like } }, { bookingId: { [Op.in]: bookingIds } }, { customerId: { [Op.in]: customerIds } }] }] });
+  }
+  const { rows, count } = await Invoice.findAndCountAll({ where, order: [['createdAt', 'DESC'], ['id', 'ASC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  res.json({ data: await presentMany(rows, user, organization), total: count });
+});
+
+invoicesRouter.get('/invoices/:id', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user, organization } = auth(req);
+  const invoice = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  if (user.role === 'crew') throw sameOrganization(user, null, 'That invoice');
+  res.json((await presentMany([invoice], user, organization))[0]);
+});
+
+invoicesRouter.post('/bookings/:id/invoices', authenticate, validate(IdParams, 'params'), validate(CreateInvoiceRequest), async (req, res) => {
+  const { user, organization } = auth(req);
+  const booking = sameOrganization(user, await Booking.findByPk(parsed<{ id: string }>(res, 'params').id), 'That booking');
+  authorize(user, 'invoice', 'create');
+  const { kind } = parsed<{ kind: 'deposit' | 'balance' }>(res);
+  const invoice = await withTransaction((t) => createInvoice(user, booking.id, kind, req, t));
+  res.status(201).json((await presentMany([invoice], user, organization))[0]);
+});
+
+invoicesRouter.post('/invoices/:id/issue', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user, organization } = auth(req);
+  const found = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  authorize(user, 'invoice', 'issue', found);
+  const invoice = await withTransaction((t) => issueInvoice(user, found.id, req, t));
+  res.json((await presentMany([invoice], user, organization))[0]);
+});
+
+invoicesRouter.post('/invoices/:id/void', authenticate, validate(IdParams, 'params'), validate(VoidInvoiceRequest), async (req, res) => {
+  const { user, organization } = auth(req);
+  const found = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  if (user.role !== 'owner') authorize(user, 'invoice', 'void', found);
+  const invoice = await withTransaction((t) => voidInvoice(user, found.id, parsed<{ reason: string }>(res).reason, req, t));
+  res.json((await presentMany([invoice], user, organization))[0]);
+});
+
+invoicesRouter.post('/payments', authenticate, validate(RecordPaymentRequest), async (req, res) => {
+  const { user } = auth(req);
+  if (!['owner', 'office'].includes(user.role)) authorize(user, 'invoice', 'create');
+  const input = parsed<z.output<typeof RecordPaymentRequest>>(res);
+  const split = !!input.allocations?.length;
+  const allocations = split ? input.allocations! : [{ invoiceId: input.invoiceId!, amountCents: input.amountCents! }];
+  const payment = await withTransaction((t) =>
+    recordPayment(
+      user,
+      { method: input.method, reference: input.reference, receivedAt: input.receivedAt ? new Date(input.receivedAt) : new Date(), allocations, fieldFor: (i) => (split ? `allocations.${i}.amountCents` : 'amountCents') },
+      req,
+      t,
+    ),
+  );
+  res.status(201).json(await paymentRow(payment));
+});
+
+async function paymentRow(payment: Payment) {
+  const allocations = await PaymentAllocation.findAll({ where: { paymentId: payment.id } });
+  const numbers = new Map((await Invoice.findAll({ where: { id: { [Op.in]: allocations.map((a) => a.invoiceId) } }, attributes: ['id', 'number'] })).map((i) => [i.id, i.number ?? null]));
+  const by = payment.recordedById ? await User.findByPk(payment.recordedById, { attributes: ['name'] }) : null;
+  return presentPayment(payment, allocations.map((a) => Object.assign(a, { number: numbers.get(a.invoiceId) ?? null })), by?.name ?? null);
+}
+
+invoicesRouter.get('/bookings/:id/payments', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user } = auth(req);
+  const booking = sameOrganization(user, await Booking.findByPk(parsed<{ id: string }>(res, 'params').id), 'That booking');
+  authorize(user, 'invoice', 'read');
+  const payments = await Payment.findAll({ where: { bookingId: booking.id }, order: [['receivedAt', 'DESC']] });
+  res.json({ data: await Promise.all(payments.map(paymentRow)), total: payments.length });
+});
+
+invoicesRouter.get('/bookings/:id/ledger', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user } = auth(req);
+  const booking = sameOrganization(user, await Booking.findByPk(parsed<{ id: string }>(res, 'params').id), 'That booking');
+  authorize(user, 'invoice', 'read');
+  const rows = await sequelize.query<{ id: string; occurred_at: Date; kind: string; memo: string; code: string; name: string; debit_cents: number; credit_cents: number }>(
+    `SELECT e.id, e.occurred_at, e.kind, e.memo, a.code, a.name, l.debit_cents::bigint AS debit_cents, l.credit_cents::bigint AS credit_cents
+       FROM journal_entries e JOIN journal_lines l ON l.entry_id = e.id JOIN accounts a ON a.id = l.account_id
+      WHERE e.booking_id = :id AND e.organization_id = :org
+      ORDER BY e.occurred_at, e.created_at, e.id, l.debit_cents DESC, a.code`,
+    { replacements: { id: booking.id, org: user.organizationId }, type: QueryTypes.SELECT },
+  );
+  const entries: LedgerEntryRow[] = [];
+  for (const r of rows) {
+    let e = entries[entries.length - 1];
+    if (!e || e.id !== r.id) entries.push((e = { id: r.id, occurredAt: new Date(r.occurred_at).toISOString(), kind: r.kind, memo: r.memo, lines: [] }));
+    e.lines.push({ accountCode: r.code, accountName: r.name, debitCents: Number(r.debit_cents), creditCents: Number(r.credit_cents) });
+  }
+  const invoiced = await Invoice.sum('totalCents', { where: { bookingId: booking.id, status: { [Op.notIn]: ['void', 'draft'] }, kind: { [Op.ne]: 'credit_note' } } });
+  const body: BookingLedger = {
+    entries,
+    balanceCents: await bookingBalance(booking.id),
+    invoicedCents: Number(invoiced ?? 0),
+    paidCents: await paidCents(booking.id),
+    securityDepositHeldCents: await securityDepositHeldCents(booking.id),
+  };
+  res.json(body);
+});
+
+const TrialBalanceQuery = z.object({ at: z.iso.date({ error: 'Give the date as YYYY-MM-DD.' }) });
+
+invoicesRouter.get('/ledger/trial-balance', authenticate, validate(TrialBalanceQuery, 'query'), async (req, res) => {
+  const { user } = auth(req);
+  authorize(user, 'invoice', 'read');
+  res.json(await trialBalance(user.organizationId, parsed<{ at: string }>(res, 'query').at));
+});
