@@ -37,6 +37,8 @@ export const paths = {
     bookingsCalendar: { path: 'bookings/calendar', getHref: (month?: string) => withQuery('/app/bookings/calendar', { month }) },
     bookingNew: { path: 'bookings/new', getHref: (customerId?: string) => withQuery('/app/bookings/new', { customerId }) },
     booking: { path: 'bookings/:id', getHref: (id: string) => `/app/bookings/${encodeURIComponent(id)}` },
+    invoices: { path: 'invoices', getHref: () => '/app/invoices' },
+    invoice: { path: 'invoices/:id', getHref: (id: string) => `/app/invoices/${encodeURIComponent(id)}` },
   },
 } as const;
 

@@ -15,6 +15,7 @@ import { BookingEditor } from '@/features/bookings/components/editor/booking-edi
 import { StatusBadge } from '@/features/bookings/components/status';
 import { bookingDocumentsQueryOptions } from '@/features/documents/api/get-booking-documents';
 import { DocumentsPanel } from '@/features/documents/components/documents-panel';
+import { MoneyPanel } from '@/features/invoices/components/money-panel';
 import { useEditorData } from './editor-data';
 import { requireArea } from '../../../guards';
 
@@ -80,18 +81,33 @@ export default function BookingRoute() {
           documents={
             b.can.readDocuments
               ? ({ dirty }) => (
-                  <SectionCard
-                    title="Documents"
-                    description="Rental agreements, invoices, receipts and credit notes made from the saved booking, with the e-mails that carried them."
-                  >
-                    <DocumentsPanel
-                      booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email }}
-                      timeZone={data.timeZone}
-                      canIssue={b.can.issueDocuments}
-                      dirty={dirty}
-                      onChanged={refreshHistory}
-                    />
-                  </SectionCard>
+                  <div className="space-y-6">
+                    <SectionCard
+                      title="Money"
+                      description="Invoices made from the saved quote, payments received, and the ledger entries every balance is summed from."
+                    >
+                      <MoneyPanel
+                        booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email }}
+                        timeZone={data.timeZone}
+                        currency={b.currency}
+                        canBill={b.can.issueDocuments}
+                        dirty={dirty}
+                        onChanged={refreshHistory}
+                      />
+                    </SectionCard>
+                    <SectionCard
+                      title="Documents"
+                      description="Rental agreements, invoices, receipts and credit notes made from the saved booking, with the e-mails that carried them."
+                    >
+                      <DocumentsPanel
+                        booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email }}
+                        timeZone={data.timeZone}
+                        canIssue={b.can.issueDocuments}
+                        dirty={dirty}
+                        onChanged={refreshHistory}
+                      />
+                    </SectionCard>
+                  </div>
                 )
               : undefined
           }

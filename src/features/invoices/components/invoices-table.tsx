@@ -1,0 +1,71 @@
+import { Link } from 'react-router';
+import { formatMoney } from '@shared/money';
+import { INVOICE_KIND_LABELS, type InvoiceRow } from '@shared/schemas/invoices';
+import { Table, TBody, Td, Th, THead, Tr } from '@/components/ui/table';
+import { linkClasses } from '@/components/ui/text-link';
+import { paths } from '@/config/paths';
+import { cn } from '@/lib/cn';
+import { formatInvoiceDate, InvoiceStatusBadges, invoiceNumber } from './invoice-labels';
+
+interface InvoicesTableProps {
+  invoices: readonly InvoiceRow[];
+  timeZone: string;
+  /** Links to bookings only for those who may open them. */
+  linkBookings: boolean;
+  caption?: string;
+}
+
+export function InvoicesTable({ invoices, timeZone, linkBookings, caption = 'Invoices' }: InvoicesTableProps) {
+  return (
+    <Table caption={caption}>
+      <THead>
+        <Tr>
+          <Th>Number</Th>
+          <Th>Kind</Th>
+          <Th>Booking</Th>
+          <Th>Customer</Th>
+          <Th>Issued</Th>
+          <Th>Due</Th>
+          <Th className="text-right">Total</Th>
+          <Th className="text-right">Paid</Th>
+          <Th className="text-right">Balance</Th>
+          <Th>Status</Th>
+        </Tr>
+      </THead>
+      <TBody>
+        {invoices.map((i) => (
+          <Tr key={i.id}>
+            <Th scope="row" className="py-3">
+              <Link className={linkClasses} to={paths.app.invoice.getHref(i.id)}>
+                {invoiceNumber(i)}
+                {i.number ? null : <span className="sr-only"> {INVOICE_KIND_LABELS[i.kind].toLowerCase()} of {i.bookingReference}</span>}
+              </Link>
+            </Th>
+            <Td className="whitespace-nowrap">{INVOICE_KIND_LABELS[i.kind]}</Td>
+            <Td className="whitespace-nowrap">
+              {linkBookings ? (
+                <Link className={linkClasses} to={paths.app.booking.getHref(i.bookingId)}>
+                  {i.bookingReference}
+                </Link>
+              ) : (
+                i.bookingReference
+              )}
+            </Td>
+            <Td>{i.customer.name}</Td>
+            <Td className="whitespace-nowrap">{formatInvoiceDate(i.issueDate, timeZone) || '—'}</Td>
+            <Td className={cn('whitespace-nowrap', i.overdue && 'font-semibold text-rust-700')}>
+              {formatInvoiceDate(i.dueDate, timeZone) || '—'}
+              {i.overdue ? <span className="block text-xs">Overdue</span> : null}
+            </Td>
+            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.totalCents, i.currency)}</Td>
+            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.paidCents, i.currency)}</Td>
+            <Td className="text-right font-semibold whitespace-nowrap tabular-nums">{formatMoney(i.balanceCents, i.currency)}</Td>
+            <Td>
+              <InvoiceStatusBadges invoice={i} />
+            </Td>
+          </Tr>
+        ))}
+      </TBody>
+    </Table>
+  );
+}

@@ -1,0 +1,235 @@
+import { useId, useState } from 'react';
+import { Link } from 'react-router';
+import { formatMoney } from '@shared/money';
+import type { InvoiceRow, PaymentRow } from '@shared/schemas/invoices';
+import { Alert, LiveRegion } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Spinner } from '@/components/ui/spinner';
+import { Table, TBody, Td, Th, THead, Tr } from '@/components/ui/table';
+import { linkClasses } from '@/components/ui/text-link';
+import { paths } from '@/config/paths';
+import { errorMessage, isApiError } from '@/lib/api';
+import { cn } from '@/lib/cn';
+import { useCreateBookingInvoice } from '../api/create-booking-invoice';
+import { useBookingLedger } from '../api/get-booking-ledger';
+import { useBookingPayments } from '../api/get-booking-payments';
+import { useInvoices } from '../api/get-invoices';
+import { formatInvoiceDate, InvoiceStatusBadges, invoiceName } from './invoice-labels';
+import { LedgerEntries } from './ledger-entries';
+import { PaymentsTable } from './payments-table';
+import { RecordPaymentDialog } from './record-payment-dialog';
+
+interface MoneyPanelProps {
+  booking: { id: string; reference: string; customerEmail: string };
+  timeZone: string;
+  currency: string;
+  /** From the booking's `can.issueDocuments`: who may bill; others read. */
+  canBill: boolean;
+  /** Unsaved edits in the booking: invoices are made from the saved quote. */
+  dirty: boolean;
+  onChanged?: () => void;
+}
+
+/** Money that may still come in on an invoice, as the server allows it. */
+const payable = (i: InvoiceRow) => i.can.recordPayment && i.balanceCents > 0;
+
+function BookingInvoices({ invoices, timeZone, reference }: { invoices: readonly InvoiceRow[]; timeZone: string; reference: string }) {
+  return (
+    <Table caption={`Invoices of booking ${reference}`}>
+      <THead>
+        <Tr>
+          <Th>Invoice</Th>
+          <Th>Status</Th>
+          <Th>Due</Th>
+          <Th className="text-right">Total</Th>
+          <Th className="text-right">Balance</Th>
+        </Tr>
+      </THead>
+      <TBody>
+        {invoices.map((i) => (
+          <Tr key={i.id}>
+            <Th scope="row" className="py-3">
+              <Link className={linkClasses} to={paths.app.invoice.getHref(i.id)}>
+                {invoiceName(i)}
+              </Link>
+            </Th>
+            <Td>
+              <InvoiceStatusBadges invoice={i} />
+            </Td>
+            <Td className={cn('whitespace-nowrap', i.overdue && 'font-semibold text-rust-700')}>{formatInvoiceDate(i.dueDate, timeZone) || '—'}</Td>
+            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.totalCents, i.currency)}</Td>
+            <Td className="text-right font-semibold whitespace-nowrap tabular-nums">{formatMoney(i.balanceCents, i.currency)}</Td>
+          </Tr>
+        ))}
+      </TBody>
+    </Table>
+  );
+}
+
+/**
+ * The booking's money: its invoices, the payments received, the balances, and the ledger entries
+ * they are summed from.
+ */
+export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChanged }: MoneyPanelProps) {
+  const invoices = useInvoices({ bookingId: booking.id, pageSize: 200 });
+  const payments = useBookingPayments(booking.id);
+  const ledger = useBookingLedger(booking.id);
+  const create = useCreateBookingInvoice();
+  // The invoices as they stood when the dialog opened, so a refetch does not reshape its fields.
+  const [paying, setPaying] = useState<InvoiceRow[] | null>(null);
+  const ids = useId();
+  const [created, setCreated] = useState<InvoiceRow | null>(null);
+  const [paid, setPaid] = useState<PaymentRow | null>(null);
+
+  const rows = invoices.data?.data ?? [];
+  const open = rows.filter(payable);
+  const money = (cents: number) => formatMoney(cents, currency);
+
+  const createInvoice = (kind: 'deposit' | 'balance') => {
+    setCreated(null);
+    setPaid(null);
+    create.mutate({ bookingId: booking.id, body: { kind } }, { onSuccess: (invoice) => (setCreated(invoice), onChanged?.()) });
+  };
+  const creating = create.isPending ? create.variables?.body.kind : null;
+  // Everything already invoiced is a fact to tell, not a failure.
+  const nothingLeft = isApiError(create.error, 'nothing_to_invoice');
+
+  return (
+    <div className="space-y-6">
+      {canBill ? (
+        <div className="space-y-2">
+          {dirty ? <Alert tone="warning">Save your changes first: invoices are made from the saved quote.</Alert> : null}
+          <div className="flex flex-wrap gap-2">
+            <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'deposit'} onClick={() => createInvoice('deposit')}>
+              Create deposit invoice
+            </Button>
+            <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'balance'} onClick={() => createInvoice('balance')}>
+              Create balance invoice
+            </Button>
+            {open.length > 0 ? (
+              <Button
+                size="sm"
+                onClick={() => {
+                  setCreated(null);
+                  setPaid(null);
+                  create.reset();
+                  setPaying(open);
+                }}
+              >
+                Record a payment
+              </Button>
+            ) : null}
+          </div>
+        </div>
+      ) : null}
+
+      <LiveRegion>
+        {created ? (
+          <Alert tone="success">
+            {invoiceName(created)} created from the quote.{' '}
+            <Link className={linkClasses} to={paths.app.invoice.getHref(created.id)}>
+              Open it to check the lines and issue it
+            </Link>
+            .
+          </Alert>
+        ) : paid ? (
+          <Alert tone="success">
+            Payment of {money(paid.amountCents)} recorded. The receipt is on its way to {booking.customerEmail}.
+          </Alert>
+        ) : nothingLeft ? (
+          <Alert tone="info">{create.error?.message}</Alert>
+        ) : null}
+      </LiveRegion>
+      {create.isError && !nothingLeft ? (
+        <Alert tone="danger" title="The invoice was not made.">
+          {errorMessage(create.error)}
+        </Alert>
+      ) : null}
+
+      <section aria-labelledby={`${ids}-totals`}>
+        <h3 id={`${ids}-totals`} className="font-semibold text-canvas-900">
+          Totals
+        </h3>
+        {ledger.isPending ? (
+          <Spinner className="mt-1 text-sm text-canvas-600" label="Loading the balances…" />
+        ) : ledger.isError ? (
+          <Alert tone="danger" title="The ledger could not be loaded." className="mt-1">
+            {errorMessage(ledger.error)}
+          </Alert>
+        ) : (
+          <>
+            <dl className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">
+              {(
+                [
+                  ['Invoiced', ledger.data.invoicedCents],
+                  ['Paid', ledger.data.paidCents],
+                  ['Balance', ledger.data.balanceCents],
+                  ['Security deposit held', ledger.data.securityDepositHeldCents],
+                ] as const
+              ).map(([label, cents]) => (
+                <div key={label} className={cn('rounded-md border px-3 py-2', label === 'Balance' ? 'border-pine-300 bg-pine-50' : 'border-canvas-200 bg-canvas-50')}>
+                  <dt className="text-sm text-canvas-700">{label}</dt>
+                  <dd className="text-lg font-semibold text-canvas-900 tabular-nums">{money(cents)}</dd>
+                </div>
+              ))}
+            </dl>
+            <details className="mt-3">
+              <summary className="cursor-pointer text-sm font-semibold text-pine-700 underline hover:text-pine-900">
+                Ledger entries ({ledger.data.entries.length})
+              </summary>
+              <p className="mt-2 text-sm text-canvas-700">Every balance above is the sum of these entries; each one’s debits equal its credits.</p>
+              <LedgerEntries entries={ledger.data.entries} currency={currency} timeZone={timeZone} />
+            </details>
+          </>
+        )}
+      </section>
+
+      <section aria-labelledby={`${ids}-invoices`}>
+        <h3 id={`${ids}-invoices`} className="mb-2 font-semibold text-canvas-900">
+          Invoices
+        </h3>
+        {invoices.isPending ? (
+          <Spinner className="text-sm text-canvas-600" label="Loading invoices…" />
+        ) : invoices.isError ? (
+          <Alert tone="danger" title="The invoices could not be loaded.">
+            {errorMessage(invoices.error)}
+          </Alert>
+        ) : rows.length === 0 ? (
+          <p className="text-sm text-canvas-700">No invoices yet.{canBill ? ' Create the deposit invoice once the quote is agreed.' : ''}</p>
+        ) : (
+          <BookingInvoices invoices={rows} timeZone={timeZone} reference={booking.reference} />
+        )}
+      </section>
+
+      <section aria-labelledby={`${ids}-payments`}>
+        <h3 id={`${ids}-payments`} className="mb-2 font-semibold text-canvas-900">
+          Payments
+        </h3>
+        {payments.isPending ? (
+          <Spinner className="text-sm text-canvas-600" label="Loading payments…" />
+        ) : payments.isError ? (
+          <Alert tone="danger" title="The payments could not be loaded.">
+            {errorMessage(payments.error)}
+          </Alert>
+        ) : payments.data.data.length === 0 ? (
+          <p className="text-sm text-canvas-700">No payments received yet.</p>
+        ) : (
+          <PaymentsTable payments={payments.data.data} currency={currency} timeZone={timeZone} caption={`Payments on booking ${booking.reference}`} />
+        )}
+      </section>
+
+      <RecordPaymentDialog
+        open={paying !== null}
+        invoices={paying ?? []}
+        split
+        timeZone={timeZone}
+        onCancel={() => setPaying(null)}
+        onDone={(payment) => {
+          setPaying(null);
+          setPaid(payment);
+          onChanged?.();
+        }}
+      />
+    </div>
+  );
+}
