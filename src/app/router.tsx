@@ -50,6 +50,8 @@ export function createAppRouter(queryClient: QueryClient) {
                 { path: paths.app.bookingsCalendar.path, lazy: () => import('./routes/app/bookings/calendar').then(c) },
                 { path: paths.app.bookingNew.path, lazy: () => import('./routes/app/bookings/new').then(c) },
                 { path: paths.app.booking.path, lazy: () => import('./routes/app/bookings/booking').then(c) },
+                { path: paths.app.invoices.path, lazy: () => import('./routes/app/invoices/list').then(c) },
+                { path: paths.app.invoice.path, lazy: () => import('./routes/app/invoices/invoice').then(c) },
                 { path: paths.app.customers.path, lazy: () => import('./routes/app/customers/list').then(c) },
                 { path: paths.app.customerNew.path, lazy: () => import('./routes/app/customers/new').then(c) },
                 { path: paths.app.customer.path, lazy: () => import('./routes/app/customers/customer').then(c) },

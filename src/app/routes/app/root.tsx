@@ -15,6 +15,7 @@ import { requireMe } from '../../guards';
 const NAVIGATION: ReadonlyArray<{ area: Area } & ShellNavItem> = [
   { area: 'dashboard', label: 'Home', to: paths.app.root.getHref(), end: true },
   { area: 'bookings', label: 'Bookings', to: paths.app.bookings.getHref() },
+  { area: 'invoices', label: 'Invoices', to: paths.app.invoices.getHref() },
   { area: 'customers', label: 'Customers', to: paths.app.customers.getHref() },
   { area: 'catalog', label: 'Catalog', to: paths.app.catalog.getHref() },
   { area: 'users', label: 'Users', to: paths.app.users.getHref() },

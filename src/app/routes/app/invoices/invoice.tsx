@@ -1,0 +1,223 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { formatMoney } from '@shared/money';
+import { INVOICE_KIND_LABELS, type InvoiceRow } from '@shared/schemas/invoices';
+import { Alert, LiveRegion } from '@/components/ui/alert';
+import { Button, buttonClasses } from '@/components/ui/button';
+import { SectionCard } from '@/components/ui/card';
+import { PageHeader } from '@/components/ui/page-header';
+import { PageSpinner, Spinner } from '@/components/ui/spinner';
+import { linkClasses, TextLink } from '@/components/ui/text-link';
+import { paths } from '@/config/paths';
+import { errorMessage, isApiError } from '@/lib/api';
+import { useMe } from '@/features/auth/api/get-me';
+import { documentPdfInlineUrl, documentPdfUrl } from '@/features/documents/api/get-document-pdf';
+import { useBookingPayments } from '@/features/invoices/api/get-booking-payments';
+import { invoiceQueryOptions, useInvoice } from '@/features/invoices/api/get-invoice';
+import { useIssueInvoice } from '@/features/invoices/api/issue-invoice';
+import { formatInvoiceDate, InvoiceStatusBadges, invoiceName } from '@/features/invoices/components/invoice-labels';
+import { InvoiceLines } from '@/features/invoices/components/invoice-lines';
+import { PaymentsTable } from '@/features/invoices/components/payments-table';
+import { RecordPaymentDialog } from '@/features/invoices/components/record-payment-dialog';
+import { VoidInvoiceDialog } from '@/features/invoices/components/void-invoice-dialog';
+import { useOrganization } from '@/features/organization/api/get-organization';
+import { requireArea } from '../../../guards';
+
+export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
+  await requireArea(queryClient, request, 'invoices');
+  void queryClient.prefetchQuery(invoiceQueryOptions(params.id ?? ''));
+  return null;
+};
+
+function InvoicePayments({ invoice, timeZone }: { invoice: InvoiceRow; timeZone: string }) {
+  const payments = useBookingPayments(invoice.bookingId, { enabled: invoice.number !== null });
+  if (invoice.number === null) return <p className="text-sm text-canvas-700">Payments are taken once the invoice is issued.</p>;
+  if (payments.isPending) return <Spinner className="text-sm text-canvas-600" label="Loading payments…" />;
+  if (payments.isError)
+    return (
+      <Alert tone="danger" title="The payments could not be loaded.">
+        {errorMessage(payments.error)}
+      </Alert>
+    );
+  const here = payments.data.data.filter((p) => p.allocations.some((a) => a.invoiceId === invoice.id));
+  if (here.length === 0) return <p className="text-sm text-canvas-700">Nothing received on this invoice yet.</p>;
+  return <PaymentsTable payments={here} invoiceId={invoice.id} currency={invoice.currency} timeZone={timeZone} caption={`Payments on invoice ${invoice.number}`} />;
+}
+
+function InvoicePdf({ invoice }: { invoice: InvoiceRow }) {
+  if (!invoice.documentId || !invoice.number) return <p className="text-sm text-canvas-700">The PDF is made when the invoice is issued, with its number and due date.</p>;
+  return (
+    <div className="space-y-2">
+      <a href={documentPdfUrl(invoice.documentId)} download className={buttonClasses('secondary', 'sm')}>
+        Download PDF<span className="sr-only"> of invoice {invoice.number}</span>
+      </a>
+      <iframe
+        title={`Preview of ${invoice.number}`}
+        src={documentPdfInlineUrl(invoice.documentId)}
+        className="h-[70vh] min-h-96 w-full rounded-md border border-canvas-300 bg-canvas-100"
+      />
+      <p className="text-sm text-canvas-700">
+        No preview on your device?{' '}
+        <a href={documentPdfInlineUrl(invoice.documentId)} target="_blank" rel="noopener" className={linkClasses}>
+          Open the PDF in a new tab
+        </a>
+        .
+      </p>
+    </div>
+  );
+}
+
+export default function InvoiceRoute() {
+  const { id = '' } = useParams();
+  const invoice = useInvoice(id);
+  const organization = useOrganization();
+  const timeZone = organization.data?.timeZone ?? 'UTC';
+  const { data: me } = useMe();
+  const issue = useIssueInvoice();
+  const [dialog, setDialog] = useState<'pay' | 'void' | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+
+  if (invoice.isPending) return <PageSpinner label="Loading the invoice…" />;
+  if (invoice.isError) {
+    if (isApiError(invoice.error) && invoice.error.status === 404) throw invoice.error;
+    return (
+      <Alert tone="danger" title="The invoice could not be loaded.">
+        {errorMessage(invoice.error)}
+      </Alert>
+    );
+  }
+  const i = invoice.data;
+  const money = (cents: number) => formatMoney(cents, i.currency);
+  const title = i.number ? `Invoice ${i.number}` : invoiceName(i);
+  const canPay = i.can.recordPayment && i.balanceCents > 0;
+  const act = (what: 'pay' | 'void') => {
+    setNotice(null);
+    issue.reset();
+    setDialog(what);
+  };
+
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <TextLink to={paths.app.invoices.getHref()}>Back to invoices</TextLink>
+      </p>
+      <PageHeader
+        title={title}
+        description={
+          <span className="flex flex-wrap items-center gap-x-2 gap-y-1">
+            <InvoiceStatusBadges invoice={i} />
+            <span>{INVOICE_KIND_LABELS[i.kind]}</span>
+            <span aria-hidden="true">·</span>
+            {me?.areas.includes('customers') ? <TextLink to={paths.app.customer.getHref(i.customer.id)}>{i.customer.name}</TextLink> : <span>{i.customer.name}</span>}
+            <span aria-hidden="true">·</span>
+            {me?.areas.includes('bookings') ? (
+              <TextLink to={paths.app.booking.getHref(i.bookingId)}>Booking {i.bookingReference}</TextLink>
+            ) : (
+              <span>Booking {i.bookingReference}</span>
+            )}
+          </span>
+        }
+        actions={
+          <>
+            {i.can.issue ? (
+              <Button
+                isLoading={issue.isPending}
+                onClick={() => {
+                  setNotice(null);
+                  issue.mutate(i.id, { onSuccess: (row) => setNotice(`Invoice ${row.number} is issued${row.dueDate ? `, due ${formatInvoiceDate(row.dueDate, timeZone)}` : ''}. Its PDF is below.`) });
+                }}
+              >
+                Issue invoice
+              </Button>
+            ) : null}
+            {canPay ? <Button onClick={() => act('pay')}>Record a payment</Button> : null}
+            {i.can.void ? (
+              <Button variant="secondary" disabled={issue.isPending} onClick={() => act('void')}>
+                Void invoice
+              </Button>
+            ) : null}
+          </>
+        }
+      />
+
+      <div className="mb-6 space-y-3">
+        <LiveRegion>{notice ? <Alert tone="success">{notice}</Alert> : null}</LiveRegion>
+        {issue.isError ? (
+          <Alert tone="danger" title="The invoice was not issued.">
+            {errorMessage(issue.error)}
+          </Alert>
+        ) : null}
+        {i.status === 'void' ? (
+          <Alert tone="warning" title="This invoice is void.">
+            {i.voidReason ? `Reason: ${i.voidReason}` : null}
+          </Alert>
+        ) : null}
+        {i.overdue ? (
+          <Alert tone="danger" title="This invoice is overdue.">
+            It was due {formatInvoiceDate(i.dueDate, timeZone)} and {money(i.balanceCents)} is still owed.
+          </Alert>
+        ) : null}
+      </div>
+
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="space-y-6">
+          <SectionCard title="Lines" description="Copied from the booking’s quote when the invoice was made.">
+            <InvoiceLines invoice={i} />
+          </SectionCard>
+          <SectionCard title="Payments">
+            <InvoicePayments invoice={i} timeZone={timeZone} />
+          </SectionCard>
+        </div>
+        <div className="space-y-6">
+          <SectionCard title="Details">
+            <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-sm">
+              <dt className="text-canvas-600">Issued</dt>
+              <dd className="text-canvas-900">{formatInvoiceDate(i.issueDate, timeZone) || 'Not yet'}</dd>
+              <dt className="text-canvas-600">Due</dt>
+              <dd className={i.overdue ? 'font-semibold text-rust-700' : 'text-canvas-900'}>
+                {formatInvoiceDate(i.dueDate, timeZone) || 'Set when issued'}
+                {i.overdue ? ' (overdue)' : null}
+              </dd>
+              <dt className="text-canvas-600">Customer</dt>
+              <dd className="break-all text-canvas-900">
+                {i.customer.name}
+                <span className="block text-canvas-700">{i.customer.email}</span>
+              </dd>
+              <dt className="text-canvas-600">Total</dt>
+              <dd className="text-canvas-900 tabular-nums">{money(i.totalCents)}</dd>
+              <dt className="text-canvas-600">Paid</dt>
+              <dd className="text-canvas-900 tabular-nums">{money(i.paidCents)}</dd>
+              <dt className="text-canvas-600">Balance</dt>
+              <dd className="font-semibold text-canvas-900 tabular-nums">{money(i.balanceCents)}</dd>
+            </dl>
+          </SectionCard>
+          <SectionCard title="PDF">
+            <InvoicePdf invoice={i} />
+          </SectionCard>
+        </div>
+      </div>
+
+      <RecordPaymentDialog
+        open={dialog === 'pay'}
+        invoices={[i]}
+        split={false}
+        timeZone={timeZone}
+        onCancel={() => setDialog(null)}
+        onDone={(payment) => {
+          setDialog(null);
+          setNotice(`Payment of ${money(payment.amountCents)} recorded. The receipt is on its way to ${i.customer.email}.`);
+        }}
+      />
+      <VoidInvoiceDialog
+        open={dialog === 'void'}
+        invoice={i}
+        onCancel={() => setDialog(null)}
+        onDone={(row) => {
+          setDialog(null);
+          setNotice(`Invoice ${row.number ?? ''} is void. A ledger entry reverses it.`.replace('  ', ' '));
+        }}
+      />
+    </>
+  );
+}
