@@ -29,7 +29,8 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 }
 
-const cents = { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 };
+// A function, not a shared object: Sequelize writes each attribute's column name into its definition.
+const cents = () => ({ type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 });
 
 Invoice.init(
   {
@@ -43,13 +44,13 @@ Invoice.init(
     issueDate: { type: DataTypes.DATEONLY, allowNull: true },
     dueDate: { type: DataTypes.DATEONLY, allowNull: true },
     lines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-    rentalCents: cents,
-    deliveryLaborCents: cents,
-    damageWaiverCents: cents,
-    damageCents: cents,
-    taxCents: cents,
-    totalCents: cents,
-    paidCents: cents,
+    rentalCents: cents(),
+    deliveryLaborCents: cents(),
+    damageWaiverCents: cents(),
+    damageCents: cents(),
+    taxCents: cents(),
+    totalCents: cents(),
+    paidCents: cents(),
     documentId: { type: DataTypes.UUID, allowNull: true },
     ledgerEntryId: { type: DataTypes.UUID, allowNull: true },
     voidReason: { type: DataTypes.STRING(500), allowNull: true },
