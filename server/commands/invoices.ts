@@ -6,8 +6,12 @@ import { INVOICE_KIND_LABELS, type InvoiceLineRow } from '../../shared/schemas/i
 import { sequelize, type Transaction } from '../db';
 import { badRequest, conflict, HttpError } from '../errors';
 import { ensureChart } from '../ledger/chart';
-import { eventTiming, invoiceIssued, paymentReceived, postEntry, reverseEntry, type InvoiceBreakdown } from '../ledger/post';
-import { Booking, BookingLine, Customer, Invoice, Organization, Payment, PaymentAllocation, type User } from '../models';
+import { securityDepositHeldCents } from '../ledger/balances';
+import {
+  eventTiming, invoiceIssued, paymentReceived, postEntry, refundIssued, reverseEntry, securityDepositApplied, securityDepositHeld,
+  securityDepositRefunded, type InvoiceBreakdown,
+} from '../ledger/post';
+import { Booking, BookingLine, Customer, Invoice, Organization, Payment, PaymentAllocation, Refund, SecurityDepositMove, type User } from '../models';
 import { quoteBooking } from '../services/pricing';
 import { rulesOf } from '../services/rules';
 import { audit } from './audit';
@@ -231,4 +235,84 @@ export async function recordPayment(
   if (customer.email) await sendDocument(actor, receipt, customer.email, req, t);
   await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.recorded', subjectType: 'booking', subjectId: bookingId, data: { paymentId: payment.id, amountCents: total, method: input.method } }, req, t);
   return payment;
+}
+
+/**
+ * Gives money back on a payment (owner): never more than the payment less its earlier refunds.
+ * The invoices it paid owe again, latest first; one reversing-style ledger entry (refundIssued).
+ */
+export async function refundPayment(actor: User, paymentId: string, input: { amountCents: number; reason: string }, req: Request, t: Transaction) {
+  const payment = (await Payment.findOne({ where: { id: paymentId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
+  await Booking.findByPk(payment.bookingId, { transaction: t, lock: t.LOCK.UPDATE });
+  const already = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id }, transaction: t })) ?? 0);
+  const refundable = payment.amountCents - already;
+  const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  if (input.amountCents > refundable) {
+    throw conflict(`At most ${formatMoney(refundable, currency)} of this payment can be refunded.`, 'refund_too_large', { amountCents: `At most ${formatMoney(refundable, currency)}.` });
+  }
+  const entry = await postEntry(
+    {
+      organizationId: actor.organizationId, bookingId: payment.bookingId, customerId: payment.customerId, memo: `Refund: ${input.reason}`.slice(0, 400),
+      occurredAt: new Date(), source: { type: 'payment', id: payment.id }, createdById: actor.id, ...refundIssued(input.amountCents, payment.method),
+    },
+    t,
+  );
+  const refund = await Refund.create(
+    { organizationId: actor.organizationId, paymentId: payment.id, bookingId: payment.bookingId, amountCents: input.amountCents, reason: input.reason, ledgerEntryId: entry.id, createdById: actor.id },
+    { transaction: t },
+  );
+  // The invoices this payment paid are owed again, the most recently paid first.
+  let left = input.amountCents;
+  const allocations = await PaymentAllocation.findAll({ where: { paymentId: payment.id }, order: [['id', 'DESC']], transaction: t });
+  for (const a of allocations) {
+    if (left === 0) break;
+    const inv = (await Invoice.findByPk(a.invoiceId, { transaction: t, lock: t.LOCK.UPDATE }))!;
+    const back = Math.min(left, inv.paidCents, a.amountCents);
+    if (back <= 0) continue;
+    inv.paidCents -= back;
+    inv.status = inv.status === 'void' ? 'void' : statusFor(inv);
+    await inv.save({ transaction: t });
+    left -= back;
+  }
+  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.refunded', subjectType: 'booking', subjectId: payment.bookingId, data: { paymentId: payment.id, amountCents: input.amountCents, reason: input.reason } }, req, t);
+  return refund;
+}
+
+/** Takes, returns or keeps (for damage) a booking's refundable security deposit; never returns or keeps more than is held. */
+export async function moveSecurityDeposit(
+  actor: User,
+  bookingId: string,
+  input: { action: 'collect' | 'refund' | 'keep'; amountCents: number; method?: 'cash' | 'check' | 'transfer' | 'card'; reason: string },
+  req: Request,
+  t: Transaction,
+) {
+  const booking = (await Booking.findOne({ where: { id: bookingId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
+  await ensureChart(actor.organizationId, t);
+  const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  if (input.action !== 'collect') {
+    const held = await securityDepositHeldCents(bookingId, { transaction: t });
+    if (input.amountCents > held) {
+      throw conflict(`Only ${formatMoney(held, currency)} of security deposit is held on this booking.`, 'more_than_held', { amountCents: `At most ${formatMoney(held, currency)}.` });
+    }
+  }
+  const draft =
+    input.action === 'collect'
+      ? securityDepositHeld(input.amountCents, input.method!)
+      : input.action === 'refund'
+        ? securityDepositRefunded(input.amountCents, input.method!)
+        : securityDepositApplied(input.amountCents, 'damage');
+  const memo = { collect: 'Security deposit received', refund: 'Security deposit returned', keep: `Security deposit kept: ${input.reason}` }[input.action];
+  const entry = await postEntry(
+    { organizationId: actor.organizationId, bookingId, customerId: booking.customerId, memo: memo.slice(0, 400), occurredAt: new Date(), source: { type: 'booking', id: bookingId }, createdById: actor.id, ...draft },
+    t,
+  );
+  const move = await SecurityDepositMove.create(
+    {
+      organizationId: actor.organizationId, bookingId, kind: ({ collect: 'held', refund: 'refunded', keep: 'kept' } as const)[input.action],
+      amountCents: input.amountCents, method: input.method ?? null, reason: input.reason, ledgerEntryId: entry.id, createdById: actor.id,
+    },
+    { transaction: t },
+  );
+  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: `security_deposit.${move.kind}`, subjectType: 'booking', subjectId: bookingId, data: { amountCents: input.amountCents, reason: input.reason } }, req, t);
+  return move;
 }

@@ -14,6 +14,7 @@ import { JournalEntry } from './JournalEntry';
 import { JournalLine } from './JournalLine';
 import { Organization } from './Organization';
 import { Payment, PaymentAllocation } from './Payment';
+import { Refund, SecurityDepositMove } from './Refund';
 import { Session } from './Session';
 import { Shortfall } from './Shortfall';
 import { SigningEvent } from './SigningEvent';
@@ -38,7 +39,7 @@ JournalEntry.hasMany(JournalLine, { foreignKey: 'entryId', as: 'lines' });
 JournalLine.belongsTo(Account, { foreignKey: 'accountId', as: 'account' });
 
 export {
-  Invoice, Payment, PaymentAllocation,
+  Invoice, Payment, PaymentAllocation, Refund, SecurityDepositMove,
   Account, AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, JournalEntry, JournalLine,
   Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,
 };

@@ -128,3 +128,22 @@ export interface BookingLedger {
   paidCents: number;
   securityDepositHeldCents: number;
 }
+
+/** POST /api/payments/:id/refunds (owner). */
+export const RefundRequest = z.object({
+  amountCents: z.number({ error: 'Enter the amount to refund.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
+  reason: z.string({ error: 'Say why.' }).trim().min(3, 'Say why the money goes back.').max(500),
+});
+export type RefundRequest = z.input<typeof RefundRequest>;
+
+/** POST /api/bookings/:id/security-deposit: take it, give it back, or keep part for damage. */
+export const SecurityDepositRequest = z
+  .object({
+    action: z.enum(['collect', 'refund', 'keep'], { error: 'Choose collect, refund or keep.' }),
+    amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
+    method: z.enum(['cash', 'check', 'transfer', 'card'], { error: 'Choose how the money moved.' }).optional(),
+    reason: z.string().trim().max(500).default(''),
+  })
+  .refine((v) => v.action === 'keep' || !!v.method, { path: ['method'], message: 'Choose how the money moved.' })
+  .refine((v) => v.action !== 'keep' || v.reason.length >= 3, { path: ['reason'], message: 'Say what the deposit pays for (the damage).' });
+export type SecurityDepositRequest = z.input<typeof SecurityDepositRequest>;

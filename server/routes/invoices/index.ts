@@ -4,9 +4,10 @@ import { z } from 'zod';
 import { dateInZone } from '../../../shared/dates';
 import { IdParams } from '../../../shared/schemas/common';
 import {
-  CreateInvoiceRequest, InvoiceListQuery, RecordPaymentRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
+  CreateInvoiceRequest, InvoiceListQuery, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
 } from '../../../shared/schemas/invoices';
-import { createInvoice, issueInvoice, recordPayment, voidInvoice } from '../../commands/invoices';
+import { createInvoice, issueInvoice, moveSecurityDeposit, recordPayment, refundPayment, voidInvoice } from '../../commands/invoices';
+import { forbidden } from '../../errors';
 import { sequelize, withTransaction } from '../../db';
 import { bookingBalance, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
 import { auth, authenticate } from '../../middlewares/authenticate';
@@ -138,6 +139,26 @@ invoicesRouter.get('/bookings/:id/ledger', authenticate, validate(IdParams, 'par
     securityDepositHeldCents: await securityDepositHeldCents(booking.id),
   };
   res.json(body);
+});
+
+invoicesRouter.post('/payments/:id/refunds', authenticate, validate(IdParams, 'params'), validate(RefundRequest), async (req, res) => {
+  const { user } = auth(req);
+  const payment = sameOrganization(user, await Payment.findByPk(parsed<{ id: string }>(res, 'params').id), 'That payment');
+  // Refunds are the owner's call.
+  if (user.role !== 'owner') throw forbidden('Only the owner gives refunds.');
+  const refund = await withTransaction((t) => refundPayment(user, payment.id, parsed<{ amountCents: number; reason: string }>(res), req, t));
+  res.status(201).json({ id: refund.id, paymentId: refund.paymentId, amountCents: refund.amountCents, reason: refund.reason, createdAt: refund.createdAt.toISOString() });
+});
+
+invoicesRouter.post('/bookings/:id/security-deposit', authenticate, validate(IdParams, 'params'), validate(SecurityDepositRequest), async (req, res) => {
+  const { user } = auth(req);
+  const booking = sameOrganization(user, await Booking.findByPk(parsed<{ id: string }>(res, 'params').id), 'That booking');
+  const input = parsed<z.output<typeof SecurityDepositRequest>>(res);
+  authorize(user, 'invoice', 'create');
+  // Giving money back is the owner's call, as with refunds.
+  if (input.action === 'refund' && user.role !== 'owner') throw forbidden('Only the owner returns money.');
+  const move = await withTransaction((t) => moveSecurityDeposit(user, booking.id, input, req, t));
+  res.status(201).json({ id: move.id, kind: move.kind, amountCents: move.amountCents, heldCents: await securityDepositHeldCents(booking.id) });
 });
 
 const TrialBalanceQuery = z.object({ at: z.iso.date({ error: 'Give the date as YYYY-MM-DD.' }) });

@@ -124,3 +124,45 @@ describe('payments', () => {
     expect((await Booking.findByPk(booking.id))!.status).toBe('draft');
   });
 });
+
+describe('refunds and security deposits', () => {
+  it('only the owner refunds, never more than was paid; the invoice owes again and the ledger balance follows', async () => {
+    const s = await setup();
+    const booking = await s.newBooking();
+    const inv = (await s.office.post(`/api/bookings/${booking.id}/invoices`, { kind: 'deposit' })).body;
+    await s.office.post(`/api/invoices/${inv.id}/issue`);
+    const pay = (await s.office.post('/api/payments', { method: 'check', invoiceId: inv.id, amountCents: 14_479 })).body;
+    expect((await s.office.post(`/api/payments/${pay.id}/refunds`, { amountCents: 1_000, reason: 'Goodwill' })).status).toBe(403);
+    const owner = await as(s.owner);
+    const tooMuch = await owner.post(`/api/payments/${pay.id}/refunds`, { amountCents: 14_480, reason: 'Too much' });
+    expect(tooMuch.status).toBe(409);
+    expect(tooMuch.body.error.fields.amountCents).toMatch(/\$144\.79/);
+    expect((await owner.post(`/api/payments/${pay.id}/refunds`, { amountCents: 4_479, reason: 'Smaller tent after all' })).status).toBe(201);
+    expect((await owner.get(`/api/invoices/${inv.id}`)).body).toMatchObject({ status: 'partly_paid', paidCents: 10_000, balanceCents: 4_479 });
+    // invoiced - paid + refunded = 144.79 - 144.79 + 44.79 (the balance definition of issue 6).
+    expect((await owner.get(`/api/bookings/${booking.id}/ledger`)).body).toMatchObject({ balanceCents: 4_479, paidCents: 10_000 });
+    expect((await owner.post(`/api/payments/${pay.id}/refunds`, { amountCents: 10_001, reason: 'Again' })).status).toBe(409);
+  });
+
+  it('a security deposit is held as a liability, then returned in part and kept in part for damage, never more than held', async () => {
+    const s = await setup();
+    const booking = await s.newBooking();
+    const owner = await as(s.owner);
+    expect((await s.office.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'collect', amountCents: 20_000 })).status).toBe(400);
+    const held = await s.office.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'collect', amountCents: 20_000, method: 'cash' });
+    expect(held.body.heldCents).toBe(20_000);
+    expect((await s.office.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'refund', amountCents: 5_000, method: 'cash' })).status).toBe(403);
+    expect((await owner.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'keep', amountCents: 5_000 })).status).toBe(400);
+    expect((await owner.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'keep', amountCents: 4_500, reason: 'Torn sidewall panel' })).body.heldCents).toBe(15_500);
+    expect((await owner.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'refund', amountCents: 15_501, method: 'cash' })).body.error.code).toBe('more_than_held');
+    expect((await owner.post(`/api/bookings/${booking.id}/security-deposit`, { action: 'refund', amountCents: 15_500, method: 'cash' })).body.heldCents).toBe(0);
+    const today = new Date().toISOString().slice(0, 10);
+    const tb = (await owner.get(`/api/ledger/trial-balance?at=${today}`)).body;
+    expect(tb.totalDebitCents).toBe(tb.totalCreditCents);
+    const recovery = tb.accounts.find((a: { name: string }) => /damage recovery/i.test(a.name));
+    expect(recovery.creditCents).toBe(4_500);
+    // Never revenue while held, and none left once settled.
+    const deposits = tb.accounts.find((a: { name: string }) => /security deposits/i.test(a.name));
+    expect(deposits.creditCents).toBe(0);
+  });
+});
