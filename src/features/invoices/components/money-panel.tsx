@@ -96,16 +96,21 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
 
   return (
     <div className="space-y-6">
-      {canBill ? (
+      {canBill || open.length > 0 ? (
         <div className="space-y-2">
-          {dirty ? <Alert tone="warning">Save your changes first: invoices are made from the saved quote.</Alert> : null}
+          {canBill && dirty ? <Alert tone="warning">Save your changes first: invoices are made from the saved quote.</Alert> : null}
           <div className="flex flex-wrap gap-2">
-            <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'deposit'} onClick={() => createInvoice('deposit')}>
-              Create deposit invoice
-            </Button>
-            <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'balance'} onClick={() => createInvoice('balance')}>
-              Create balance invoice
-            </Button>
+            {canBill ? (
+              <>
+                <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'deposit'} onClick={() => createInvoice('deposit')}>
+                  Create deposit invoice
+                </Button>
+                <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'balance'} onClick={() => createInvoice('balance')}>
+                  Create balance invoice
+                </Button>
+              </>
+            ) : null}
+            {/* Shown from the invoices' own can.recordPayment, not from the booking. */}
             {open.length > 0 ? (
               <Button
                 size="sm"
@@ -146,6 +151,40 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
         </Alert>
       ) : null}
 
+      <section aria-labelledby={`${ids}-invoices`}>
+        <h3 id={`${ids}-invoices`} className="mb-2 font-semibold text-canvas-900">
+          Invoices
+        </h3>
+        {invoices.isPending ? (
+          <Spinner className="text-sm text-canvas-600" label="Loading invoices…" />
+        ) : invoices.isError ? (
+          <Alert tone="danger" title="The invoices could not be loaded.">
+            {errorMessage(invoices.error)}
+          </Alert>
+        ) : rows.length === 0 ? (
+          <p className="text-sm text-canvas-700">No invoices yet.{canBill ? ' Create the deposit invoice once the quote is agreed.' : ''}</p>
+        ) : (
+          <BookingInvoices invoices={rows} timeZone={timeZone} reference={booking.reference} />
+        )}
+      </section>
+
+      <section aria-labelledby={`${ids}-payments`}>
+        <h3 id={`${ids}-payments`} className="mb-2 font-semibold text-canvas-900">
+          Payments
+        </h3>
+        {payments.isPending ? (
+          <Spinner className="text-sm text-canvas-600" label="Loading payments…" />
+        ) : payments.isError ? (
+          <Alert tone="danger" title="The payments could not be loaded.">
+            {errorMessage(payments.error)}
+          </Alert>
+        ) : payments.data.data.length === 0 ? (
+          <p className="text-sm text-canvas-700">No payments received yet.</p>
+        ) : (
+          <PaymentsTable payments={payments.data.data} currency={currency} timeZone={timeZone} caption={`Payments on booking ${booking.reference}`} />
+        )}
+      </section>
+
       <section aria-labelledby={`${ids}-totals`}>
         <h3 id={`${ids}-totals`} className="font-semibold text-canvas-900">
           Totals
@@ -181,40 +220,6 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
               <LedgerEntries entries={ledger.data.entries} currency={currency} timeZone={timeZone} />
             </details>
           </>
-        )}
-      </section>
-
-      <section aria-labelledby={`${ids}-invoices`}>
-        <h3 id={`${ids}-invoices`} className="mb-2 font-semibold text-canvas-900">
-          Invoices
-        </h3>
-        {invoices.isPending ? (
-          <Spinner className="text-sm text-canvas-600" label="Loading invoices…" />
-        ) : invoices.isError ? (
-          <Alert tone="danger" title="The invoices could not be loaded.">
-            {errorMessage(invoices.error)}
-          </Alert>
-        ) : rows.length === 0 ? (
-          <p className="text-sm text-canvas-700">No invoices yet.{canBill ? ' Create the deposit invoice once the quote is agreed.' : ''}</p>
-        ) : (
-          <BookingInvoices invoices={rows} timeZone={timeZone} reference={booking.reference} />
-        )}
-      </section>
-
-      <section aria-labelledby={`${ids}-payments`}>
-        <h3 id={`${ids}-payments`} className="mb-2 font-semibold text-canvas-900">
-          Payments
-        </h3>
-        {payments.isPending ? (
-          <Spinner className="text-sm text-canvas-600" label="Loading payments…" />
-        ) : payments.isError ? (
-          <Alert tone="danger" title="The payments could not be loaded.">
-            {errorMessage(payments.error)}
-          </Alert>
-        ) : payments.data.data.length === 0 ? (
-          <p className="text-sm text-canvas-700">No payments received yet.</p>
-        ) : (
-          <PaymentsTable payments={payments.data.data} currency={currency} timeZone={timeZone} caption={`Payments on booking ${booking.reference}`} />
         )}
       </section>
 

@@ -42,7 +42,7 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
                 {p.recordedBy ? <span className="block text-xs text-canvas-600">by {p.recordedBy}</span> : null}
               </Th>
               <Td className="whitespace-nowrap">{PAYMENT_METHOD_LABELS[p.method] ?? p.method}</Td>
-              <Td className="break-all">{p.reference || '—'}</Td>
+              <Td className="min-w-24 break-words">{p.reference || '—'}</Td>
               <Td className="text-right whitespace-nowrap tabular-nums">
                 {formatMoney(here ? here.amountCents : p.amountCents, currency)}
                 {here && here.amountCents !== p.amountCents ? <span className="block text-xs text-canvas-600">of {formatMoney(p.amountCents, currency)}</span> : null}
@@ -64,7 +64,7 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
               <Td className="whitespace-nowrap">
                 {p.receiptDocumentId ? (
                   <a className={linkClasses} href={documentPdfUrl(p.receiptDocumentId)} download>
-                    Download receipt<span className="sr-only"> for the payment of {when}</span>
+                    Download<span className="sr-only"> the receipt for the payment of {when}</span>
                   </a>
                 ) : (
                   <span className="text-canvas-600">Being made</span>

@@ -6,7 +6,10 @@ import { TextArea } from '@/components/ui/textarea';
 import { isApiError } from '@/lib/api';
 import { useZodForm } from '@/lib/form';
 import { useVoidInvoice } from '../api/void-invoice';
-import { invoiceNumber } from './invoice-labels';
+import { invoiceName } from './invoice-labels';
+
+/** "invoice INV-2027-0004", or "the draft deposit invoice" before it has a number. */
+const which = (i: InvoiceRow) => (i.number ? `invoice ${i.number}` : `the ${invoiceName(i).toLowerCase()}`);
 
 function VoidForm({ invoice, onDone, onCancel, voiding }: { invoice: InvoiceRow; onDone: (invoice: InvoiceRow) => void; onCancel: () => void; voiding: ReturnType<typeof useVoidInvoice> }) {
   const form = useZodForm(VoidInvoiceRequest, { reason: '' });
@@ -17,10 +20,11 @@ function VoidForm({ invoice, onDone, onCancel, voiding }: { invoice: InvoiceRow;
   const hasPayments = isApiError(voiding.error, 'has_payments');
 
   return (
-    <form ref={form.formRef} onSubmit={submit} noValidate aria-label={`Void invoice ${invoiceNumber(invoice)}`} className="space-y-4">
+    <form ref={form.formRef} onSubmit={submit} noValidate aria-label={`Void ${which(invoice)}`} className="space-y-4">
       <p className="text-sm text-canvas-700">
-        The invoice keeps its number and stays in the list, marked void. A ledger entry reverses what it posted, so the booking’s balance no longer
-        counts it.
+        {invoice.number
+          ? 'The invoice keeps its number and stays in the list, marked void. A ledger entry reverses what it posted, so the booking’s balance no longer counts it.'
+          : 'The draft stays in the list, marked void. It was never posted, so no balance changes.'}
       </p>
       {hasPayments ? (
         <Alert tone="danger" title="Money was received on this invoice.">
@@ -50,7 +54,7 @@ export function VoidInvoiceDialog({ open, invoice, onDone, onCancel }: { open: b
     onCancel();
   };
   return (
-    <Dialog open={open} title={`Void invoice ${invoiceNumber(invoice)}?`} busy={voiding.isPending} onClose={close}>
+    <Dialog open={open} title={`Void ${which(invoice)}?`} busy={voiding.isPending} onClose={close}>
       <VoidForm invoice={invoice} voiding={voiding} onDone={onDone} onCancel={close} />
     </Dialog>
   );

@@ -160,7 +160,7 @@ export default function InvoiceRoute() {
         ) : null}
       </div>
 
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="space-y-6">
           <SectionCard title="Lines" description="Copied from the booking’s quote when the invoice was made.">
             <InvoiceLines invoice={i} />
