@@ -27,7 +27,7 @@ export function LedgerEntries({ entries, currency, timeZone }: { entries: readon
               <h4 className="font-semibold text-canvas-900">{title}</h4>
               <span className="text-sm text-canvas-700">{formatZoned(entry.occurredAt, timeZone)}</span>
             </div>
-            <div className="overflow-x-auto">
+            <div className="relative overflow-x-auto">
               <table className="min-w-full text-left text-sm">
                 <caption className="sr-only">
                   {title}, {formatZoned(entry.occurredAt, timeZone)}

@@ -71,7 +71,7 @@ export function LinesTable({ lines, items, errors, currency, showPrices, readOnl
 
   return (
     <div className="space-y-3">
-      <div className="overflow-x-auto rounded-lg border border-canvas-200 bg-white">
+      <div className="relative overflow-x-auto rounded-lg border border-canvas-200 bg-white">
         <table className="min-w-full text-left text-sm">
           <caption className="sr-only">Booking lines</caption>
           <thead className="bg-canvas-100 text-canvas-700">
