@@ -21,3 +21,15 @@ async function shutdown() {
 }
 process.on('SIGINT', shutdown);
 process.on('SIGTERM', shutdown);
+
+// For a server started by a test run: stop when that run is gone.
+if (process.env.EXIT_WITH_PARENT === '1') {
+  const parent = process.ppid;
+  setInterval(() => {
+    try {
+      process.kill(parent, 0);
+    } catch {
+      void shutdown();
+    }
+  }, 1000).unref();
+}

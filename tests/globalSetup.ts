@@ -70,9 +70,12 @@ export default async function setup(project: TestProject) {
   // the mail that the API tests queue.
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
-  const child = spawn('node_modules/.bin/tsx', ['server/index.ts'], {
+  // Plain node with tsx's loader, so the server's parent is this process: it stops by itself if
+  // the test run dies without its teardown (an orphan would take the next run's mail jobs).
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     env: {
       ...process.env,
+      EXIT_WITH_PARENT: '1',
       NODE_ENV: 'production',
       PORT: String(port),
       APP_URL: appUrl,

@@ -1,4 +1,5 @@
 import { getBoss } from '../services/jobs';
+import { registerRecognizeDeposits } from './recognizeDeposits';
 import { registerSendDocument } from './sendDocument';
 import { registerSendMail } from './sendMail';
 
@@ -7,5 +8,6 @@ export async function startWorkers() {
   const boss = await getBoss();
   await registerSendMail(boss);
   await registerSendDocument(boss);
+  await registerRecognizeDeposits(boss);
   return boss;
 }
