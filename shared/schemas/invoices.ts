@@ -147,3 +147,39 @@ export const SecurityDepositRequest = z
   .refine((v) => v.action === 'keep' || !!v.method, { path: ['method'], message: 'Choose how the money moved.' })
   .refine((v) => v.action !== 'keep' || v.reason.length >= 3, { path: ['reason'], message: 'Say what the deposit pays for (the damage).' });
 export type SecurityDepositRequest = z.input<typeof SecurityDepositRequest>;
+
+export interface AccountRow {
+  id: string;
+  code: string;
+  name: string;
+  type: 'asset' | 'liability' | 'equity' | 'revenue' | 'expense' | 'contra_revenue';
+  /** The role the posting rules use this account for. */
+  systemKey: string | null;
+}
+
+/** PUT /api/ledger/accounts/:id (owner): the company's own code and name for an account. */
+export const AccountInput = z.object({
+  code: z.string().trim().min(1, 'Give the account a code.').max(10, 'At most 10 characters.').regex(/^[0-9A-Za-z.-]+$/, 'Use digits, letters, dots and hyphens.'),
+  name: z.string().trim().min(2, 'Give the account a name.').max(120),
+});
+export type AccountInput = z.input<typeof AccountInput>;
+
+export interface StatementRow {
+  entryId: string;
+  occurredAt: string;
+  kind: string;
+  memo: string;
+  bookingId: string | null;
+  bookingReference: string | null;
+  debitCents: number;
+  creditCents: number;
+  balanceCents: number;
+}
+
+/** GET /api/customers/:id/statement */
+export interface CustomerStatement {
+  customer: { id: string; name: string };
+  lines: StatementRow[];
+  balanceCents: number;
+  currency: string;
+}

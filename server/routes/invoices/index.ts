@@ -4,15 +4,18 @@ import { z } from 'zod';
 import { dateInZone } from '../../../shared/dates';
 import { IdParams } from '../../../shared/schemas/common';
 import {
-  CreateInvoiceRequest, InvoiceListQuery, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
+  AccountInput, CreateInvoiceRequest, InvoiceListQuery, type AccountRow, type CustomerStatement, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
 } from '../../../shared/schemas/invoices';
 import { createInvoice, issueInvoice, moveSecurityDeposit, recordPayment, refundPayment, voidInvoice } from '../../commands/invoices';
 import { forbidden } from '../../errors';
 import { sequelize, withTransaction } from '../../db';
-import { bookingBalance, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
+import { bookingBalance, customerStatement, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
+import { ensureChart } from '../../ledger/chart';
+import { audit } from '../../commands/audit';
+import { conflict } from '../../errors';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
-import { Booking, Customer, Invoice, Payment, PaymentAllocation, User, type Organization } from '../../models';
+import { Account, Booking, Customer, Invoice, Payment, PaymentAllocation, User, type Organization } from '../../models';
 import { authorize, sameOrganization } from '../../policies';
 import { presentInvoice, presentPayment } from '../../presenters/invoice';
 
@@ -159,6 +162,50 @@ invoicesRouter.post('/bookings/:id/security-deposit', authenticate, validate(IdP
   if (input.action === 'refund' && user.role !== 'owner') throw forbidden('Only the owner returns money.');
   const move = await withTransaction((t) => moveSecurityDeposit(user, booking.id, input, req, t));
   res.status(201).json({ id: move.id, kind: move.kind, amountCents: move.amountCents, heldCents: await securityDepositHeldCents(booking.id) });
+});
+
+invoicesRouter.get('/ledger/accounts', authenticate, async (req, res) => {
+  const { user } = auth(req);
+  authorize(user, 'invoice', 'read');
+  await withTransaction((t) => ensureChart(user.organizationId, t));
+  const rows = await Account.findAll({ where: { organizationId: user.organizationId }, order: [['code', 'ASC']] });
+  const data: AccountRow[] = rows.map((a) => ({ id: a.id, code: a.code, name: a.name, type: a.type, systemKey: a.systemKey }));
+  res.json({ data, total: data.length, can: { update: user.role === 'owner' } });
+});
+
+invoicesRouter.put('/ledger/accounts/:id', authenticate, validate(IdParams, 'params'), validate(AccountInput), async (req, res) => {
+  const { user } = auth(req);
+  const account = sameOrganization(user, await Account.findByPk(parsed<{ id: string }>(res, 'params').id), 'That account');
+  if (user.role !== 'owner') throw forbidden('Only the owner changes the chart of accounts.');
+  const input = parsed<{ code: string; name: string }>(res);
+  try {
+    await withTransaction(async (t) => {
+      const before = { code: account.code, name: account.name };
+      await account.update(input, { transaction: t });
+      await audit({ organizationId: user.organizationId, actorUserId: user.id, action: 'account.updated', subjectType: 'account', subjectId: account.id, data: { before, after: input } }, req, t);
+    });
+  } catch (err) {
+    if ((err as { name?: string }).name === 'SequelizeUniqueConstraintError') throw conflict('Another account has that code.', 'code_taken', { code: 'Another account has that code.' });
+    throw err;
+  }
+  res.json({ id: account.id, code: account.code, name: account.name, type: account.type, systemKey: account.systemKey });
+});
+
+invoicesRouter.get('/customers/:id/statement', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user, organization } = auth(req);
+  const customer = sameOrganization(user, await Customer.findByPk(parsed<{ id: string }>(res, 'params').id), 'That customer');
+  authorize(user, 'invoice', 'read');
+  const statement = await customerStatement(customer.id);
+  const body: CustomerStatement = {
+    customer: { id: customer.id, name: customer.name },
+    lines: statement.lines.map((l) => ({
+      entryId: l.entryId, occurredAt: new Date(l.occurredAt).toISOString(), kind: l.kind, memo: l.memo, bookingId: l.bookingId,
+      bookingReference: l.bookingReference, debitCents: l.debitCents, creditCents: l.creditCents, balanceCents: l.balanceCents,
+    })),
+    balanceCents: statement.balanceCents,
+    currency: organization.currency,
+  };
+  res.json(body);
 });
 
 const TrialBalanceQuery = z.object({ at: z.iso.date({ error: 'Give the date as YYYY-MM-DD.' }) });

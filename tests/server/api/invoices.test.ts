@@ -166,3 +166,28 @@ describe('refunds and security deposits', () => {
     expect(deposits.creditCents).toBe(0);
   });
 });
+
+describe('the chart of accounts and the customer statement', () => {
+  it('the owner renames an account; every role but the crew reads; the statement runs a balance entry by entry', async () => {
+    const s = await setup();
+    const owner = await as(s.owner);
+    const accounts = await owner.get('/api/ledger/accounts');
+    expect(accounts.body.data.map((a: { code: string }) => a.code)).toEqual(expect.arrayContaining(['1200', '2100', '4000']));
+    const ar = accounts.body.data.find((a: { systemKey: string }) => a.systemKey === 'accounts_receivable');
+    const put = (c: ApiClient, body: object) => c.agent.put(`/api/ledger/accounts/${ar.id}`).set('X-CSRF-Token', c.csrf).set('X-Forwarded-For', c.ip).send(body);
+    expect((await put(s.office, { code: '1210', name: 'Customers owe us' })).status).toBe(403);
+    expect((await put(owner, { code: '', name: 'x' })).status).toBe(400);
+    expect((await put(owner, { code: '2100', name: 'Clash' })).status).toBe(409);
+    expect((await put(owner, { code: '1210', name: 'Customers owe us' })).body).toMatchObject({ code: '1210', systemKey: 'accounts_receivable' });
+    expect((await (await as(s.crew)).get('/api/ledger/accounts')).status).toBe(403);
+
+    const booking = await s.newBooking();
+    const inv = (await s.office.post(`/api/bookings/${booking.id}/invoices`, { kind: 'deposit' })).body;
+    await s.office.post(`/api/invoices/${inv.id}/issue`);
+    await s.office.post('/api/payments', { method: 'cash', invoiceId: inv.id, amountCents: 5_000 });
+    const statement = await (await as(s.bookkeeper)).get(`/api/customers/${s.customer.id}/statement`);
+    expect(statement.status).toBe(200);
+    expect(statement.body.lines.map((l: { balanceCents: number }) => l.balanceCents)).toEqual([14_479, 9_479]);
+    expect(statement.body.balanceCents).toBe(9_479);
+  });
+});
