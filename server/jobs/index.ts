@@ -1,5 +1,6 @@
 import { getBoss } from '../services/jobs';
 import { registerRecognizeDeposits } from './recognizeDeposits';
+import { registerReminders } from './reminders';
 import { registerSendDocument } from './sendDocument';
 import { registerSendMail } from './sendMail';
 
@@ -9,5 +10,6 @@ export async function startWorkers() {
   await registerSendMail(boss);
   await registerSendDocument(boss);
   await registerRecognizeDeposits(boss);
+  await registerReminders(boss);
   return boss;
 }

@@ -61,6 +61,16 @@ export const CompanyRules = z.object({
   seatsPerBanquetTable: z.number().int().min(1).max(30).default(10),
   /** Invoice numbers read PREFIX-YEAR-NUMBER, e.g. INV-2027-0001. */
   invoicePrefix: z.string().trim().min(1).max(8).regex(/^[A-Z0-9]+$/, 'Use capital letters and digits.').default('INV'),
+  /** Reminders by e-mail, each sent once; the company turns each off here. Days are common practice, no published source. */
+  reminders: z
+    .object({
+      balanceDue: z.boolean(),
+      balanceDueDaysBefore: z.number().int().min(0).max(60),
+      overdue: z.boolean(),
+      unsignedAgreement: z.boolean(),
+      unsignedAfterDays: z.number().int().min(1).max(60),
+    })
+    .default({ balanceDue: true, balanceDueDaysBefore: 3, overdue: true, unsignedAgreement: true, unsignedAfterDays: 3 }),
   /** A signing link works this many days. Default 14: common practice, no published source. */
   signingLinkDays: z.number().int().min(1).max(90).default(14),
   /** The customer can download the signed copy from the link this many days. Default 90: common practice. */

@@ -9,7 +9,8 @@ import { quote } from '../../../shared/quote';
 import { audit } from '../../commands/audit';
 import { withTransaction } from '../../db';
 import { auth, authenticate } from '../../middlewares/authenticate';
-import { parsed, validate } from '../../middlewares/validate';
+import { fieldErrors, parsed, validate } from '../../middlewares/validate';
+import { badRequest } from '../../errors';
 import { Item, Organization } from '../../models';
 import { authorize, can } from '../../policies';
 import { checkAvailability } from '../../services/availability';
@@ -66,13 +67,21 @@ planningRouter.get('/organization/rules', authenticate, (req, res) => {
   res.json({ ...rulesOf(organization), can: { update: can(user, 'organization', 'update', organization) } });
 });
 
-planningRouter.put('/organization/rules', authenticate, validate(CompanyRules), async (req, res) => {
+planningRouter.put('/organization/rules', authenticate, async (req, res) => {
   const { user } = auth(req);
-  const rules = parsed<CompanyRules>(res);
   const org = await withTransaction(async (t) => {
     const o = (await Organization.findByPk(user.organizationId, { transaction: t, lock: t.LOCK.UPDATE }))!;
     authorize(user, 'organization', 'update', o);
     const before = rulesOf(o);
+    // The sent fields over the current rules: a form that does not know a newer rule leaves it as it was.
+    const body = req.body && typeof req.body === 'object' && !Array.isArray(req.body) ? (req.body as Record<string, unknown>) : {};
+    const { can: _can, ...sent } = body;
+    const result = CompanyRules.safeParse({ ...before, ...sent });
+    if (!result.success) {
+      const fields = fieldErrors(result.error);
+      throw badRequest(Object.keys(fields).length === 1 ? Object.values(fields)[0] : `Check the ${Object.keys(fields).length} highlighted fields.`, fields);
+    }
+    const rules = result.data;
     o.rules = rules;
     await o.save({ transaction: t });
     await audit({ organizationId: o.id, actorUserId: user.id, action: 'organization.rules_updated', subjectType: 'organization', subjectId: o.id, data: { before, after: rules } }, req, t);
