@@ -1,12 +1,7 @@
 import { formatMoney } from '@shared/money';
 import type { LedgerEntryRow } from '@shared/schemas/invoices';
 import { formatZoned } from '@/lib/zoned-time';
-
-/** "invoice_issued" -> "Invoice issued", for an entry without a memo. */
-const kindText = (kind: string) => {
-  const words = kind.replaceAll('_', ' ').trim();
-  return words.charAt(0).toUpperCase() + words.slice(1);
-};
+import { kindText } from './ledger-labels';
 
 /**
  * Each journal entry with its lines, so every balance on the panel can be traced: what was

@@ -16,15 +16,20 @@ import { useBookingPayments } from '../api/get-booking-payments';
 import { useInvoices } from '../api/get-invoices';
 import { formatInvoiceDate, InvoiceStatusBadges, invoiceName } from './invoice-labels';
 import { LedgerEntries } from './ledger-entries';
+import { refundedOnBooking } from './ledger-labels';
 import { PaymentsTable } from './payments-table';
 import { RecordPaymentDialog } from './record-payment-dialog';
+import { RefundPaymentDialog } from './refund-payment-dialog';
+import { SecurityDepositSection } from './security-deposit-section';
 
 interface MoneyPanelProps {
-  booking: { id: string; reference: string; customerEmail: string };
+  booking: { id: string; reference: string; customerEmail: string; securityDepositCents: number };
   timeZone: string;
   currency: string;
   /** From the booking's `can.issueDocuments`: who may bill; others read. */
   canBill: boolean;
+  /** The owner's: refunds and returning a security deposit (the server answers 403 to others). */
+  canGiveMoneyBack: boolean;
   /** Unsaved edits in the booking: invoices are made from the saved quote. */
   dirty: boolean;
   onChanged?: () => void;
@@ -70,7 +75,7 @@ function BookingInvoices({ invoices, timeZone, reference }: { invoices: readonly
  * The booking's money: its invoices, the payments received, the balances, and the ledger entries
  * they are summed from.
  */
-export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChanged }: MoneyPanelProps) {
+export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyBack, dirty, onChanged }: MoneyPanelProps) {
   const invoices = useInvoices({ bookingId: booking.id, pageSize: 200 });
   const payments = useBookingPayments(booking.id);
   const ledger = useBookingLedger(booking.id);
@@ -80,14 +85,20 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
   const ids = useId();
   const [created, setCreated] = useState<InvoiceRow | null>(null);
   const [paid, setPaid] = useState<PaymentRow | null>(null);
+  const [refunding, setRefunding] = useState<PaymentRow | null>(null);
+  const [refunded, setRefunded] = useState<{ amountCents: number } | null>(null);
 
   const rows = invoices.data?.data ?? [];
   const open = rows.filter(payable);
   const money = (cents: number) => formatMoney(cents, currency);
+  const paymentRows = payments.data?.data ?? [];
+  // The ledger's refund entries do not name their payment: known only when there is one payment.
+  const refundableCents = (p: PaymentRow) => (paymentRows.length === 1 && ledger.data ? Math.max(0, p.amountCents - refundedOnBooking(ledger.data.entries)) : null);
 
   const createInvoice = (kind: 'deposit' | 'balance') => {
     setCreated(null);
     setPaid(null);
+    setRefunded(null);
     create.mutate({ bookingId: booking.id, body: { kind } }, { onSuccess: (invoice) => (setCreated(invoice), onChanged?.()) });
   };
   const creating = create.isPending ? create.variables?.body.kind : null;
@@ -117,6 +128,7 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
                 onClick={() => {
                   setCreated(null);
                   setPaid(null);
+                  setRefunded(null);
                   create.reset();
                   setPaying(open);
                 }}
@@ -141,6 +153,8 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
           <Alert tone="success">
             Payment of {money(paid.amountCents)} recorded. The receipt is on its way to {booking.customerEmail}.
           </Alert>
+        ) : refunded ? (
+          <Alert tone="success">Refund of {money(refunded.amountCents)} recorded. The invoices it paid are owed again by that much.</Alert>
         ) : nothingLeft ? (
           <Alert tone="info">{create.error?.message}</Alert>
         ) : null}
@@ -181,9 +195,35 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
         ) : payments.data.data.length === 0 ? (
           <p className="text-sm text-canvas-700">No payments received yet.</p>
         ) : (
-          <PaymentsTable payments={payments.data.data} currency={currency} timeZone={timeZone} caption={`Payments on booking ${booking.reference}`} />
+          <PaymentsTable
+            payments={payments.data.data}
+            currency={currency}
+            timeZone={timeZone}
+            caption={`Payments on booking ${booking.reference}`}
+            onRefund={
+              canGiveMoneyBack
+                ? (payment) => {
+                    setCreated(null);
+                    setPaid(null);
+                    setRefunded(null);
+                    setRefunding(payment);
+                  }
+                : undefined
+            }
+          />
         )}
       </section>
+
+      <SecurityDepositSection
+        bookingId={booking.id}
+        agreedCents={booking.securityDepositCents}
+        heldCents={ledger.data?.securityDepositHeldCents}
+        ledgerError={ledger.isError}
+        currency={currency}
+        canMove={canBill}
+        canReturn={canGiveMoneyBack}
+        onChanged={onChanged}
+      />
 
       <section aria-labelledby={`${ids}-totals`}>
         <h3 id={`${ids}-totals`} className="font-semibold text-canvas-900">
@@ -197,13 +237,12 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
           </Alert>
         ) : (
           <>
-            <dl className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">
+            <dl className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-3">
               {(
                 [
                   ['Invoiced', ledger.data.invoicedCents],
                   ['Paid', ledger.data.paidCents],
                   ['Balance', ledger.data.balanceCents],
-                  ['Security deposit held', ledger.data.securityDepositHeldCents],
                 ] as const
               ).map(([label, cents]) => (
                 <div key={label} className={cn('rounded-md border px-3 py-2', label === 'Balance' ? 'border-pine-300 bg-pine-50' : 'border-canvas-200 bg-canvas-50')}>
@@ -232,6 +271,18 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, dirty, onChan
         onDone={(payment) => {
           setPaying(null);
           setPaid(payment);
+          onChanged?.();
+        }}
+      />
+      <RefundPaymentDialog
+        payment={refunding}
+        currency={currency}
+        timeZone={timeZone}
+        refundableCents={refunding ? refundableCents(refunding) : null}
+        onCancel={() => setRefunding(null)}
+        onDone={(refund) => {
+          setRefunding(null);
+          setRefunded(refund);
           onChanged?.();
         }}
       />

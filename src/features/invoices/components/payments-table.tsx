@@ -1,6 +1,7 @@
 import { Link } from 'react-router';
 import { formatMoney } from '@shared/money';
 import type { PaymentRow } from '@shared/schemas/invoices';
+import { Button } from '@/components/ui/button';
 import { Table, TBody, Td, Th, THead, Tr } from '@/components/ui/table';
 import { linkClasses } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
@@ -15,10 +16,12 @@ interface PaymentsTableProps {
   caption: string;
   /** On an invoice's page: show only what each payment put on that invoice. */
   invoiceId?: string;
+  /** For the owner: a Refund button on each payment. */
+  onRefund?: (payment: PaymentRow) => void;
 }
 
 /** Payments received: when, how, the reference, how much went where, and the receipt. */
-export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId }: PaymentsTableProps) {
+export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId, onRefund }: PaymentsTableProps) {
   return (
     <Table caption={caption}>
       <THead>
@@ -29,6 +32,11 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
           <Th className="text-right">Amount</Th>
           {invoiceId ? null : <Th>Paid on</Th>}
           <Th>Receipt</Th>
+          {onRefund ? (
+            <Th>
+              <span className="sr-only">Refund</span>
+            </Th>
+          ) : null}
         </Tr>
       </THead>
       <TBody>
@@ -70,6 +78,13 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
                   <span className="text-canvas-600">Being made</span>
                 )}
               </Td>
+              {onRefund ? (
+                <Td className="whitespace-nowrap">
+                  <Button size="sm" variant="secondary" onClick={() => onRefund(p)}>
+                    Refund<span className="sr-only"> the payment of {when}</span>
+                  </Button>
+                </Td>
+              ) : null}
             </Tr>
           );
         })}

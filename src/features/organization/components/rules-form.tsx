@@ -35,6 +35,7 @@ function toValues(r: CompanyRules): Values {
     windLimitMph: String(r.windLimitMph),
     signingLinkDays: String(r.signingLinkDays),
     signedCopyDays: String(r.signedCopyDays),
+    invoicePrefix: r.invoicePrefix,
     bands: String(r.deliveryBands.length),
   };
   for (const s of SEATING_STYLES) v[`sqFtPerGuest.${s}`] = numberToInput(r.sqFtPerGuest[s]);
@@ -54,6 +55,8 @@ function toInput(v: Values) {
   c.put('damageWaiverBp', parsePercent(v.damageWaiverBp, 2, 0));
   c.input.damageWaiverTaxable = v.damageWaiverTaxable === 'true';
   c.input.deliveryTaxable = v.deliveryTaxable === 'true';
+  // Typed in lower case it still reads as the prefix the schema takes.
+  c.input.invoicePrefix = v.invoicePrefix.trim().toUpperCase();
   for (const key of ['turnaroundHours', 'permitAreaSqFt', 'permitOpenSidedAreaSqFt', 'seatsPerBanquetTable', 'windLimitMph', 'signingLinkDays', 'signedCopyDays']) {
     c.put(key, parseWhole(v[key], 0));
   }
@@ -195,6 +198,19 @@ export function RulesForm({ rules }: { rules: RulesResponse }) {
             inputMode="numeric"
             hint="Take tents down or clear them at this sustained wind. When a tent maker rates a tent lower, follow the manufacturer’s rating."
             {...form.field('windLimitMph')}
+          />
+        </fieldset>
+        <fieldset className="space-y-4">
+          <Legend>Invoices</Legend>
+          <TextField
+            className="max-w-xs"
+            label="Invoice number prefix"
+            autoComplete="off"
+            autoCapitalize="characters"
+            spellCheck={false}
+            maxLength={8}
+            hint="Invoices read PREFIX-YEAR-NUMBER, like INV-2027-0001."
+            {...form.field('invoicePrefix')}
           />
         </fieldset>
         <fieldset className="space-y-4">

@@ -15,6 +15,7 @@ import { BookingEditor } from '@/features/bookings/components/editor/booking-edi
 import { StatusBadge } from '@/features/bookings/components/status';
 import { bookingDocumentsQueryOptions } from '@/features/documents/api/get-booking-documents';
 import { DocumentsPanel } from '@/features/documents/components/documents-panel';
+import { useMe } from '@/features/auth/api/get-me';
 import { MoneyPanel } from '@/features/invoices/components/money-panel';
 import { useEditorData } from './editor-data';
 import { requireArea } from '../../../guards';
@@ -34,6 +35,7 @@ export default function BookingRoute() {
   const { id = '' } = useParams();
   const booking = useBooking(id);
   const data = useEditorData();
+  const isOwner = useMe().data?.user.role === 'owner';
   const queryClient = useQueryClient();
   // Issuing and sending show on the booking's history.
   const refreshHistory = useCallback(() => void queryClient.invalidateQueries({ queryKey: bookingHistoryQueryOptions(id).queryKey }), [queryClient, id]);
@@ -87,10 +89,11 @@ export default function BookingRoute() {
                       description="Invoices made from the saved quote, payments received, and the ledger entries every balance is summed from."
                     >
                       <MoneyPanel
-                        booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email }}
+                        booking={{ id: b.id, reference: b.reference, customerEmail: b.customer.email, securityDepositCents: b.securityDepositCents }}
                         timeZone={data.timeZone}
                         currency={b.currency}
                         canBill={b.can.issueDocuments}
+                        canGiveMoneyBack={isOwner}
                         dirty={dirty}
                         onChanged={refreshHistory}
                       />

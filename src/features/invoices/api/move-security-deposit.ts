@@ -1,0 +1,28 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { SecurityDepositRequest } from '@shared/schemas/invoices';
+import { api } from '@/lib/api';
+import { moneyBaseKey } from './get-invoices';
+
+export interface SecurityDepositMoveRow {
+  id: string;
+  kind: 'held' | 'refunded' | 'kept';
+  amountCents: number;
+  /** What the booking holds after this move. */
+  heldCents: number;
+}
+
+/**
+ * Collect, return (owner only) or keep part for damage. 409 `more_than_held` on `amountCents`
+ * when returning or keeping more than the booking holds.
+ */
+export const moveSecurityDeposit = ({ bookingId, body }: { bookingId: string; body: SecurityDepositRequest }) =>
+  api.post<SecurityDepositMoveRow>(`/api/bookings/${encodeURIComponent(bookingId)}/security-deposit`, body);
+
+export function useMoveSecurityDeposit() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: moveSecurityDeposit,
+    // The held amount is read from the ledger, which sits under the money key.
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: moneyBaseKey }),
+  });
+}
