@@ -56,7 +56,7 @@ export function AppShell({ navItems, organizationName, userName, roleLabel, onSi
       </a>
 
       {/* Narrow screens: top bar */}
-      <header className="sticky top-0 z-30 flex items-center justify-between gap-3 bg-pine-900 px-4 py-2 text-white lg:hidden">
+      <header className="sticky top-0 z-30 flex items-center justify-between gap-3 bg-pine-900 px-4 py-2 text-white lg:hidden print:hidden">
         <div className="flex min-w-0 items-center gap-3">
           <Logo inverted className="text-base" />
           <span className="truncate text-sm text-pine-100">{organizationName}</span>
@@ -79,7 +79,8 @@ export function AppShell({ navItems, organizationName, userName, roleLabel, onSi
       <aside
         id={panelId}
         className={cn(
-          'z-20 flex-col bg-pine-900 text-pine-50 lg:sticky lg:top-0 lg:flex lg:h-dvh lg:w-64 lg:shrink-0',
+          // Printing a page (a statement) leaves the navigation off the paper.
+          'z-20 flex-col bg-pine-900 text-pine-50 lg:sticky lg:top-0 lg:flex lg:h-dvh lg:w-64 lg:shrink-0 print:hidden',
           menuOpen ? 'fixed inset-x-0 top-14 bottom-0 flex overflow-y-auto' : 'hidden',
         )}
       >
@@ -143,8 +144,8 @@ export function AppShell({ navItems, organizationName, userName, roleLabel, onSi
         </section>
       </aside>
 
-      <main ref={mainRef} id="main" tabIndex={-1} className="relative min-w-0 flex-1 px-4 py-6 sm:px-8 sm:py-8 focus:outline-none">
-        <div className="mx-auto max-w-5xl">{children}</div>
+      <main ref={mainRef} id="main" tabIndex={-1} className="relative min-w-0 flex-1 px-4 py-6 sm:px-8 sm:py-8 focus:outline-none print:p-0">
+        <div className="mx-auto max-w-5xl print:max-w-none">{children}</div>
       </main>
     </div>
   );

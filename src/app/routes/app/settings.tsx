@@ -29,7 +29,9 @@ export default function SettingsRoute() {
   const organization = useOrganization();
   const rules = useRules();
   // Templates and clauses are read by every role but the crew (the server's document policy).
-  const readsTemplates = useMe().data?.user.role !== 'crew';
+  const { data: me } = useMe();
+  const readsTemplates = me?.user.role !== 'crew';
+  const readsMoney = Boolean(me?.areas.includes('invoices'));
 
   return (
     <>
@@ -73,6 +75,16 @@ export default function SettingsRoute() {
             <li>
               <TextLink to={paths.app.settingsClauses.getHref()}>Clause library</TextLink>
               <p className="text-sm text-canvas-700">The terms of the rental agreement, their order, and which ones ask for the customer’s initials.</p>
+            </li>
+          </ul>
+        </SectionCard>
+      ) : null}
+      {readsMoney ? (
+        <SectionCard className="mt-6" title="Bookkeeping" description="How invoices, payments and deposits are posted to your ledger.">
+          <ul className="space-y-3">
+            <li>
+              <TextLink to={paths.app.settingsAccounts.getHref()}>Chart of accounts</TextLink>
+              <p className="text-sm text-canvas-700">The code and name of each account, as your bookkeeper knows them, and what Guyline posts to it.</p>
             </li>
           </ul>
         </SectionCard>

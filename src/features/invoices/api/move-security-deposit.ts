@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SecurityDepositRequest } from '@shared/schemas/invoices';
 import { api } from '@/lib/api';
+import { bookingLedgerQueryOptions } from './get-booking-ledger';
 import { moneyBaseKey } from './get-invoices';
 
 export interface SecurityDepositMoveRow {
@@ -22,7 +23,11 @@ export function useMoveSecurityDeposit() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: moveSecurityDeposit,
-    // The held amount is read from the ledger, which sits under the money key.
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: moneyBaseKey }),
+    onSuccess: (move, { bookingId }) => {
+      // The answer says what is held now: show it at once, so a return opened right after a
+      // collect is prefilled with the new amount rather than the one before the refetch.
+      queryClient.setQueryData(bookingLedgerQueryOptions(bookingId).queryKey, (ledger) => ledger && { ...ledger, securityDepositHeldCents: move.heldCents });
+      void queryClient.invalidateQueries({ queryKey: moneyBaseKey });
+    },
   });
 }

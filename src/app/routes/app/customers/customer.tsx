@@ -62,11 +62,18 @@ export default function CustomerRoute() {
         title={c.name}
         description={c.taxExempt ? <Badge tone="caution">Tax exempt</Badge> : null}
         actions={
-          me?.areas.includes('bookings') && c.can.update ? (
-            <Link className={buttonClasses('primary')} to={paths.app.bookingNew.getHref(c.id)}>
-              New booking for this customer
-            </Link>
-          ) : null
+          <>
+            {me?.areas.includes('invoices') ? (
+              <Link className={buttonClasses('secondary')} to={paths.app.customerStatement.getHref(c.id)}>
+                Statement
+              </Link>
+            ) : null}
+            {me?.areas.includes('bookings') && c.can.update ? (
+              <Link className={buttonClasses('primary')} to={paths.app.bookingNew.getHref(c.id)}>
+                New booking for this customer
+              </Link>
+            ) : null}
+          </>
         }
       />
       <div className="space-y-6">
