@@ -33,7 +33,7 @@ export function presentInvoice(invoice: Invoice, actor: User, extra: { booking: 
   };
 }
 
-export function presentPayment(payment: Payment, allocations: (PaymentAllocation & { number: string | null })[], recordedBy: string | null): PaymentRow {
+export function presentPayment(payment: Payment, allocations: (PaymentAllocation & { number: string | null })[], recordedBy: string | null, refundedCents = 0): PaymentRow {
   return {
     id: payment.id,
     bookingId: payment.bookingId,
@@ -44,5 +44,6 @@ export function presentPayment(payment: Payment, allocations: (PaymentAllocation
     allocations: allocations.map((a) => ({ invoiceId: a.invoiceId, invoiceNumber: a.number, amountCents: a.amountCents })),
     receiptDocumentId: payment.receiptDocumentId ?? null,
     recordedBy,
+    refundedCents,
   };
 }

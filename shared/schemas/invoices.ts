@@ -109,6 +109,8 @@ export interface PaymentRow {
   allocations: { invoiceId: string; invoiceNumber: string | null; amountCents: number }[];
   receiptDocumentId: string | null;
   recordedBy: string | null;
+  /** Refunded so far; at most amountCents - refundedCents can still go back. */
+  refundedCents: number;
 }
 
 export interface LedgerEntryRow {

@@ -15,7 +15,7 @@ import { audit } from '../../commands/audit';
 import { conflict } from '../../errors';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
-import { Account, Booking, Customer, Invoice, Payment, PaymentAllocation, User, type Organization } from '../../models';
+import { Account, Booking, Customer, Invoice, Payment, PaymentAllocation, Refund, User, type Organization } from '../../models';
 import { authorize, sameOrganization } from '../../policies';
 import { presentInvoice, presentPayment } from '../../presenters/invoice';
 
@@ -105,7 +105,8 @@ async function paymentRow(payment: Payment) {
   const allocations = await PaymentAllocation.findAll({ where: { paymentId: payment.id } });
   const numbers = new Map((await Invoice.findAll({ where: { id: { [Op.in]: allocations.map((a) => a.invoiceId) } }, attributes: ['id', 'number'] })).map((i) => [i.id, i.number ?? null]));
   const by = payment.recordedById ? await User.findByPk(payment.recordedById, { attributes: ['name'] }) : null;
-  return presentPayment(payment, allocations.map((a) => Object.assign(a, { number: numbers.get(a.invoiceId) ?? null })), by?.name ?? null);
+  const refunded = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id } })) ?? 0);
+  return presentPayment(payment, allocations.map((a) => Object.assign(a, { number: numbers.get(a.invoiceId) ?? null })), by?.name ?? null, refunded);
 }
 
 invoicesRouter.get('/bookings/:id/payments', authenticate, validate(IdParams, 'params'), async (req, res) => {

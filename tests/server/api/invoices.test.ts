@@ -142,6 +142,8 @@ describe('refunds and security deposits', () => {
     // invoiced - paid + refunded = 144.79 - 144.79 + 44.79 (the balance definition of issue 6).
     expect((await owner.get(`/api/bookings/${booking.id}/ledger`)).body).toMatchObject({ balanceCents: 4_479, paidCents: 10_000 });
     expect((await owner.post(`/api/payments/${pay.id}/refunds`, { amountCents: 10_001, reason: 'Again' })).status).toBe(409);
+    const payments = (await owner.get(`/api/bookings/${booking.id}/payments`)).body.data;
+    expect(payments[0]).toMatchObject({ amountCents: 14_479, refundedCents: 4_479 });
   });
 
   it('a security deposit is held as a liability, then returned in part and kept in part for damage, never more than held', async () => {

@@ -1,5 +1,4 @@
-import { sum } from '@shared/money';
-import type { AccountRow, LedgerEntryRow } from '@shared/schemas/invoices';
+import type { AccountRow } from '@shared/schemas/invoices';
 
 /** "invoice_issued" -> "Invoice issued", for an entry without a memo. */
 export const kindText = (kind: string) => {
@@ -33,11 +32,3 @@ export const ACCOUNT_PURPOSE_LABELS: Record<string, string> = {
 };
 
 export const accountPurpose = (systemKey: string | null) => (systemKey ? (ACCOUNT_PURPOSE_LABELS[systemKey] ?? kindText(systemKey)) : '');
-
-/**
- * What has been refunded of a booking's payments, from its ledger: the refund entries' debits.
- * The entries do not say which payment they refund, so this is one payment's only when the
- * booking has a single payment.
- */
-export const refundedOnBooking = (entries: readonly LedgerEntryRow[]) =>
-  sum(entries.filter((e) => e.kind === 'refund').map((e) => sum(e.lines.map((l) => l.debitCents))));

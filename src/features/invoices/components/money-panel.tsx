@@ -16,7 +16,6 @@ import { useBookingPayments } from '../api/get-booking-payments';
 import { useInvoices } from '../api/get-invoices';
 import { formatInvoiceDate, InvoiceStatusBadges, invoiceName } from './invoice-labels';
 import { LedgerEntries } from './ledger-entries';
-import { refundedOnBooking } from './ledger-labels';
 import { PaymentsTable } from './payments-table';
 import { RecordPaymentDialog } from './record-payment-dialog';
 import { RefundPaymentDialog } from './refund-payment-dialog';
@@ -92,8 +91,8 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
   const open = rows.filter(payable);
   const money = (cents: number) => formatMoney(cents, currency);
   const paymentRows = payments.data?.data ?? [];
-  // The ledger's refund entries do not name their payment: known only when there is one payment.
-  const refundableCents = (p: PaymentRow) => (paymentRows.length === 1 && ledger.data ? Math.max(0, p.amountCents - refundedOnBooking(ledger.data.entries)) : null);
+  // The server says how much of each payment was refunded already.
+  const refundableCents = (p: PaymentRow) => Math.max(0, p.amountCents - p.refundedCents);
 
   const createInvoice = (kind: 'deposit' | 'balance') => {
     setCreated(null);
