@@ -164,6 +164,9 @@ export function startCluster({ name, port: wantedPort, anyPort = false }) {
   } else {
     // Another clone's tests may hold the usual port: then take any free one.
     if (anyPort && !portIsFree(port)) port = freePortSync();
+    if (!portIsFree(port)) {
+      fail(`Port ${port} is already in use (another Guyline's database?). Stop it, or choose another port with GUYLINE_PG_PORT=...`);
+    }
     const r = asPostgres(pgCtl, [
       'start', '-D', dir, '-l', log, '-w', '-t', '60',
       '-o', `-p ${port} -k ${socketDir} -c listen_addresses=127.0.0.1 -c max_connections=200`,
