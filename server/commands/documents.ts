@@ -4,12 +4,13 @@ import type { DocumentKind } from '../../shared/schemas/documents';
 import { bookingDocumentValues, renderDocument } from '../documents';
 import type { Transaction } from '../db';
 import { conflict } from '../errors';
-import { Booking, BookingLine, Customer, Document, DocumentSend, Invoice, Item, Organization, SigningEvent, SigningRequest, type User } from '../models';
+import { Booking, Document, DocumentSend, Organization, SigningEvent, SigningRequest, type User } from '../models';
 import { presentBooking } from '../presenters/booking';
 import { activeClauses, occupancyOf, templateNameFor, templateSource } from '../services/documents';
 import { queueJob } from '../services/jobs';
 import { rulesOf } from '../services/rules';
 import { readFile, storeFile } from '../services/storage';
+import { findPricedBooking, invoiceRecordDocumentIds } from '../services/bookingRecords';
 import { audit } from './audit';
 
 const PREFIX: Record<DocumentKind, string> = { rental_agreement: 'RA', invoice: 'INV', receipt: 'RCT', credit_note: 'CN' };
@@ -42,14 +43,7 @@ export async function issueDocument(
   } = {},
 ) {
   // Locking the booking serializes two people issuing at once: versions stay 1, 2, 3...
-  const booking = (await Booking.findOne({
-    where: { id: bookingId, organizationId: actor.organizationId },
-    include: [
-      { model: Customer, as: 'customer' },
-      { model: BookingLine, as: 'lines', include: [{ model: Item, as: 'item', attributes: ['id', 'kind'] }] },
-    ],
-    transaction,
-  })) as (Booking & { customer: Customer; lines: BookingLine[] }) | null;
+  const booking = await findPricedBooking(actor.organizationId, bookingId, transaction);
   if (!booking) throw conflict('That booking was not found.', 'not_found');
   await Booking.findByPk(booking.id, { transaction, lock: transaction.LOCK.UPDATE });
   if (booking.lines.length === 0) throw conflict('Add lines to the booking before issuing documents.', 'empty_booking');
@@ -57,9 +51,7 @@ export async function issueDocument(
 
   const versioned = VERSIONED[kind] && !extra.invoice;
   // The PDFs of invoice records are their own documents: never replaced by a new version of the booking's invoice.
-  const invoiceRecordDocs = (await Invoice.findAll({ where: { bookingId: booking.id }, attributes: ['documentId'], transaction }))
-    .map((i) => i.documentId)
-    .filter((x): x is string => !!x);
+  const invoiceRecordDocs = await invoiceRecordDocumentIds(booking.id, transaction);
   const previous = versioned
     ? await Document.findOne({
         where: { bookingId: booking.id, kind, status: 'issued', ...(invoiceRecordDocs.length ? { id: { [Op.notIn]: invoiceRecordDocs } } : {}) },
@@ -187,22 +179,13 @@ function substance(values: Record<string, unknown>) {
  * differently is issued again as a new version (the old one becomes replaced). Unchanged ones stay.
  */
 export async function reissueChangedDocuments(actor: User, bookingId: string, req: Request, transaction: Transaction) {
-  const invoiceRecordDocs = (await Invoice.findAll({ where: { bookingId }, attributes: ['documentId'], transaction }))
-    .map((i) => i.documentId)
-    .filter((x): x is string => !!x);
+  const invoiceRecordDocs = await invoiceRecordDocumentIds(bookingId, transaction);
   // An issued invoice record is never re-issued: it is corrected by a credit note.
   const current = (await Document.findAll({ where: { bookingId, status: 'issued', kind: ['rental_agreement', 'invoice'] }, transaction })).filter(
     (d) => !invoiceRecordDocs.includes(d.id),
   );
   if (current.length === 0) return [];
-  const booking = (await Booking.findOne({
-    where: { id: bookingId, organizationId: actor.organizationId },
-    include: [
-      { model: Customer, as: 'customer' },
-      { model: BookingLine, as: 'lines', include: [{ model: Item, as: 'item', attributes: ['id', 'kind'] }] },
-    ],
-    transaction,
-  })) as (Booking & { customer: Customer; lines: BookingLine[] }) | null;
+  const booking = await findPricedBooking(actor.organizationId, bookingId, transaction);
   if (!booking || booking.lines.length === 0) return [];
   const organization = (await Organization.findByPk(actor.organizationId, { transaction }))!;
   const reissued: Document[] = [];

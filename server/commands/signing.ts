@@ -1,6 +1,5 @@
 import { createHash, timingSafeEqual } from 'node:crypto';
 import type { Request } from 'express';
-import { Op } from 'sequelize';
 import { renderSignedPdf, signingFields, SigningInputError } from '../documents/signing';
 import type { Transaction } from '../db';
 import { env } from '../env';
@@ -9,6 +8,7 @@ import { Booking, Customer, Document, DocumentSend, Organization, SigningEvent, 
 import { queueJob } from '../services/jobs';
 import { queueMail } from '../services/mailer';
 import { companySigningKey, ensureCompanyCertificate } from '../services/companyCertificate';
+import { deskEmails } from '../services/bookingRecords';
 import { rulesOf } from '../services/rules';
 import { readFile, storeFile } from '../services/storage';
 import { hashToken, newToken } from '../services/tokens';
@@ -194,7 +194,7 @@ export async function signAgreement(
   const customer = (await Customer.findByPk(booking.customerId, { transaction }))!;
   const office = organization.email
     ? [organization.email]
-    : (await User.findAll({ where: { organizationId: organization.id, role: { [Op.in]: ['owner', 'office'] }, status: 'active' }, transaction })).map((u) => u.email);
+    : await deskEmails(organization.id, transaction);
   for (const to of new Set([request.sentTo, customer.email, ...office].filter(Boolean))) {
     const send = await DocumentSend.create({ organizationId: organization.id, documentId: signedDoc.id, to, requestedById: null }, { transaction });
     await queueJob('send-document', { sendId: send.id }, transaction);
@@ -208,8 +208,7 @@ export async function reportStockGone(requestId: string, err: ShortfallError, re
   await recordEvent(request, 'refused_stock', req, transaction, err.shortfalls.map((s) => `${s.name} short ${s.shortfall}`).join('; ').slice(0, 200));
   const organization = (await Organization.findByPk(request.organizationId, { transaction }))!;
   const booking = (await Booking.findByPk(request.bookingId, { transaction }))!;
-  const office = await User.findAll({ where: { organizationId: organization.id, role: { [Op.in]: ['owner', 'office'] }, status: 'active' }, transaction });
-  for (const to of new Set([organization.email, ...office.map((u) => u.email)].filter(Boolean))) {
+  for (const to of new Set([organization.email, ...(await deskEmails(organization.id, transaction))].filter(Boolean))) {
     await queueMail(to, 'signing-stock-gone', { reference: booking.reference, message: err.message, companyName: organization.name, link: `${env.APP_URL}/app/bookings/${booking.id}` }, transaction);
   }
 }

@@ -15,7 +15,7 @@ import { formatMoney } from '../../../shared/money';
 import { quoteBooking } from '../../services/pricing';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
-import { Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, Organization, User } from '../../models';
+import { Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Organization, User } from '../../models';
 import { authorize, can, sameOrganization } from '../../policies';
 import { presentBooking } from '../../presenters/booking';
 import { presentClause, presentDocument, presentTemplate } from '../../presenters/document';
@@ -24,6 +24,7 @@ import {
 } from '../../services/documents';
 import { rulesOf } from '../../services/rules';
 import { readFile } from '../../services/storage';
+import { findPricedBooking } from '../../services/bookingRecords';
 
 export const documentsRouter = Router();
 
@@ -201,13 +202,8 @@ documentsRouter.post('/templates/:name/preview', authenticate, validate(Template
   const { source, bookingId } = parsed<{ source: string; bookingId: string }>(res);
   const check = checkTemplate(name, source);
   if (!check.ok) throw templateInvalid(check.errors);
-  const booking = sameOrganization(
-    user,
-    (await Booking.findByPk(bookingId, {
-      include: [{ model: Customer, as: 'customer' }, { model: BookingLine, as: 'lines', include: [{ model: Item, as: 'item', attributes: ['id', 'kind'] }] }],
-    })) as (Booking & { customer: Customer; lines: BookingLine[] }) | null,
-    'That booking',
-  );
+  const booking = await findPricedBooking(user.organizationId, bookingId);
+  if (!booking) throw notFound('That booking');
   const { kind, email } = KIND_OF_TEMPLATE[name];
   const values = bookingDocumentValues({
     booking: presentBooking(booking, user, organization),

@@ -55,7 +55,7 @@ invoicesRouter.get('/invoices', authenticate, validate(InvoiceListQuery, 'query'
 invoicesRouter.get('/invoices/:id', authenticate, validate(IdParams, 'params'), async (req, res) => {
   const { user, organization } = auth(req);
   const invoice = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
-  if (user.role === 'crew') throw sameOrganization(user, null, 'That invoice');
+  authorize(user, 'invoice', 'read', invoice);
   res.json((await presentMany([invoice], user, organization))[0]);
 });
 
@@ -79,6 +79,7 @@ invoicesRouter.post('/invoices/:id/issue', authenticate, validate(IdParams, 'par
 invoicesRouter.post('/invoices/:id/void', authenticate, validate(IdParams, 'params'), validate(VoidInvoiceRequest), async (req, res) => {
   const { user, organization } = auth(req);
   const found = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  // Only the owner voids; an invoice with money on it gets the command's 409 (use a credit note), not a 403.
   if (user.role !== 'owner') authorize(user, 'invoice', 'void', found);
   const invoice = await withTransaction((t) => voidInvoice(user, found.id, parsed<{ reason: string }>(res).reason, req, t));
   res.json((await presentMany([invoice], user, organization))[0]);
@@ -86,7 +87,7 @@ invoicesRouter.post('/invoices/:id/void', authenticate, validate(IdParams, 'para
 
 invoicesRouter.post('/payments', authenticate, validate(RecordPaymentRequest), async (req, res) => {
   const { user } = auth(req);
-  if (!['owner', 'office'].includes(user.role)) authorize(user, 'invoice', 'create');
+  authorize(user, 'invoice', 'create');
   const input = parsed<z.output<typeof RecordPaymentRequest>>(res);
   const split = !!input.allocations?.length;
   const allocations = split ? input.allocations! : [{ invoiceId: input.invoiceId!, amountCents: input.amountCents! }];

@@ -20,6 +20,7 @@ import { Booking, Customer, Document, Organization, SigningEvent, SigningRequest
 import { authorize, can, sameOrganization } from '../../policies';
 import { disclosureFor } from '../../services/disclosure';
 import { queueMail } from '../../services/mailer';
+import { deskEmails } from '../../services/bookingRecords';
 import { rulesOf } from '../../services/rules';
 import { readFile } from '../../services/storage';
 import { createHash } from 'node:crypto';
@@ -222,8 +223,7 @@ signingRouter.post('/sign/:token/withdraw-consent', rateLimited, validate(TokenP
     await recordEvent(r, 'consent_withdrawn', req, t);
     const org = (await Organization.findByPk(r.organizationId, { transaction: t }))!;
     const booking = (await Booking.findByPk(r.bookingId, { include: [{ model: Customer, as: 'customer' }], transaction: t })) as Booking & { customer: Customer };
-    const office = await User.findAll({ where: { organizationId: org.id, role: { [Op.in]: ['owner', 'office'] }, status: 'active' }, transaction: t });
-    for (const to of new Set([org.email, ...office.map((u) => u.email)].filter(Boolean))) {
+    for (const to of new Set([org.email, ...(await deskEmails(org.id, t))].filter(Boolean))) {
       await queueMail(to, 'signing-declined', { reference: booking.reference, customerName: booking.customer.name, link: `${env.APP_URL}/app/bookings/${booking.id}` }, t);
     }
     await audit({ organizationId: org.id, actorUserId: null, action: 'signing.consent_withdrawn', subjectType: 'booking', subjectId: booking.id, data: { requestId: r.id } }, req, t);
