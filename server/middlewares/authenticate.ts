@@ -13,17 +13,20 @@ export interface AuthContext {
 export async function authenticate(req: Request, res: Response, next: NextFunction) {
   const claims = readSessionClaims(req);
   if (!claims) return next(unauthenticated());
-  const session = await Session.findByPk(claims.sid);
+  // One query per request: the session with its user and the user's company.
+  const session = (await Session.findByPk(claims.sid, {
+    include: [{ model: User, as: 'user', include: [{ model: Organization, as: 'organization' }] }],
+  })) as (Session & { user?: User & { organization?: Organization } }) | null;
   if (!session || session.userId !== claims.sub || session.revokedAt || session.expiresAt < new Date()) {
     clearSessionCookie(res);
     return next(unauthenticated('Your session has ended. Sign in again.'));
   }
-  const user = await User.findOne({ where: { id: session.userId, organizationId: session.organizationId } });
-  if (!user || user.status !== 'active') {
+  const user = session.user;
+  if (!user || user.organizationId !== session.organizationId || user.status !== 'active') {
     clearSessionCookie(res);
     return next(unauthenticated('Your account is not active. Ask the owner of your company.'));
   }
-  const organization = await Organization.findByPk(user.organizationId);
+  const organization = user.organization;
   if (!organization) return next(unauthenticated());
   req.auth = { user, organization, session };
   next();
