@@ -45,19 +45,94 @@ export interface InvoiceRow {
   subtotalCents: number;
   taxCents: number;
   totalCents: number;
+  /** Paid in money, security deposit or account credit, less refunds. */
   paidCents: number;
+  /** Taken off by credit notes. */
+  creditedCents: number;
+  /** total - paid - credited; zero once void. */
   balanceCents: number;
   currency: string;
   documentId: string | null;
   voidReason: string | null;
+  /** On a credit note: the invoice it lowers, and why. */
+  creditsInvoice: { id: string; number: string | null } | null;
+  reason: string | null;
   createdAt: string;
-  can: { issue: boolean; void: boolean; recordPayment: boolean };
+  can: { issue: boolean; void: boolean; recordPayment: boolean; creditNote: boolean };
 }
 
-export const CreateInvoiceRequest = z.object({
-  kind: z.enum(['deposit', 'balance'], { error: 'Choose a deposit or a balance invoice.' }),
+/** What an additional-charges invoice may bill after the event. */
+export const ADDITIONAL_CHARGES = ['damage', 'missing', 'late_return', 'cleaning'] as const;
+export type AdditionalCharge = (typeof ADDITIONAL_CHARGES)[number];
+export const ADDITIONAL_CHARGE_LABELS: Record<AdditionalCharge, string> = {
+  damage: 'Damage (repair)',
+  missing: 'Missing item (replacement)',
+  late_return: 'Late return',
+  cleaning: 'Cleaning',
+};
+/**
+ * Where each charge's money belongs: damage and missing stock are damage recovery; a late return
+ * is more rental; cleaning is a service, with delivery and labor.
+ */
+export const ADDITIONAL_CHARGE_CATEGORY: Record<AdditionalCharge, InvoiceCategory> = {
+  damage: 'damage',
+  missing: 'damage',
+  late_return: 'rental',
+  cleaning: 'delivery_labor',
+};
+/**
+ * Whether a charge is taxed unless the office says otherwise. Extra rental days and services are
+ * taxed like the rental; reimbursement for damaged or lost property often is not, but states
+ * differ, so each line can be switched (common practice, no published source; the company's tax
+ * adviser and state rules decide).
+ */
+export const ADDITIONAL_CHARGE_TAXABLE: Record<AdditionalCharge, boolean> = { damage: false, missing: false, late_return: true, cleaning: true };
+
+export const AdditionalChargeLine = z.object({
+  charge: z.enum(ADDITIONAL_CHARGES, { error: 'Choose damage, missing, late return or cleaning.' }),
+  description: z.string({ error: 'Describe the charge.' }).trim().min(2, 'Describe the charge.').max(200, 'Use at most 200 characters.'),
+  amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
+  taxable: z.boolean().optional(),
 });
+export type AdditionalChargeLine = z.input<typeof AdditionalChargeLine>;
+
+/** POST /api/bookings/:id/invoices: a deposit or balance invoice from the quote, or additional charges line by line. */
+export const CreateInvoiceRequest = z
+  .object({
+    kind: z.enum(['deposit', 'balance', 'additional'], { error: 'Choose a deposit, balance or additional-charges invoice.' }),
+    lines: z.array(AdditionalChargeLine).max(50, 'At most 50 lines.').optional(),
+  })
+  .refine((v) => v.kind !== 'additional' || (v.lines?.length ?? 0) > 0, { path: ['lines'], message: 'Add at least one charge.' });
 export type CreateInvoiceRequest = z.input<typeof CreateInvoiceRequest>;
+
+/** POST /api/invoices/:id/credit-notes: lowers an issued invoice; what it cannot take off the invoice becomes the customer's credit. */
+export const CreditNoteRequest = z.object({
+  amountCents: z.number({ error: 'Enter the amount to credit.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
+  reason: z.string({ error: 'Say why.' }).trim().min(3, 'Say why the customer is credited.').max(500),
+});
+export type CreditNoteRequest = z.input<typeof CreditNoteRequest>;
+
+/** POST /api/invoices/:id/apply-credit: pays an invoice from the customer's credit. */
+export const ApplyCreditRequest = z.object({
+  amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
+});
+export type ApplyCreditRequest = z.input<typeof ApplyCreditRequest>;
+
+/** POST /api/customers/:id/credit/refunds (owner): pays the customer's credit back. */
+export const CreditRefundRequest = z.object({
+  amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
+  method: z.enum(['cash', 'check', 'transfer', 'card'], { error: 'Choose how the money goes back.' }),
+  reason: z.string({ error: 'Say why.' }).trim().min(3, 'Say why the money goes back.').max(500),
+});
+export type CreditRefundRequest = z.input<typeof CreditRefundRequest>;
+
+/** GET /api/customers/:id/credit */
+export interface CustomerCredit {
+  creditCents: number;
+  currency: string;
+  /** The entries that moved the credit, newest first. */
+  moves: { entryId: string; occurredAt: string; kind: string; memo: string; bookingReference: string | null; inCents: number; outCents: number }[];
+}
 
 export const VoidInvoiceRequest = z.object({
   reason: z.string({ error: 'Say why the invoice is void.' }).trim().min(3, 'Say why the invoice is void.').max(500),
@@ -87,6 +162,8 @@ export const RecordPaymentRequest = z
     /** One invoice… */
     invoiceId: z.uuid({ error: 'Choose an invoice.' }).optional(),
     amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00).optional(),
+    /** With one invoice: keep what is paid above its balance as the customer's credit instead of refusing it. */
+    keepExcessAsCredit: z.boolean().default(false),
     /** …or split across several. */
     allocations: z
       .array(z.object({ invoiceId: z.uuid({ error: 'Choose an invoice.' }), amountCents: z.number().int().min(1, 'Each part must be above zero.').max(100_000_000_00) }))
@@ -99,11 +176,20 @@ export const RecordPaymentRequest = z
   });
 export type RecordPaymentRequest = z.input<typeof RecordPaymentRequest>;
 
+/**
+ * How a payment came: money (cash, check, transfer, card), or moved from what the customer already
+ * had with us: the security deposit held, or their account credit.
+ */
+export const RECEIPT_METHODS = ['cash', 'check', 'transfer', 'card', 'security_deposit', 'credit'] as const;
+export type ReceiptMethod = (typeof RECEIPT_METHODS)[number];
+
 export interface PaymentRow {
   id: string;
   bookingId: string;
-  method: 'cash' | 'check' | 'transfer' | 'card';
+  method: ReceiptMethod;
   amountCents: number;
+  /** The part kept as the customer's credit (an overpayment), not applied to an invoice. */
+  creditCents: number;
   reference: string;
   receivedAt: string;
   allocations: { invoiceId: string; invoiceNumber: string | null; amountCents: number }[];
@@ -127,8 +213,12 @@ export interface BookingLedger {
   /** What the customer owes on the booking (accounts receivable). */
   balanceCents: number;
   invoicedCents: number;
+  /** Taken off by credit notes. */
+  creditedCents: number;
   paidCents: number;
   securityDepositHeldCents: number;
+  /** The customer's account credit (all bookings), usable on any of their invoices. */
+  customerCreditCents: number;
 }
 
 /** POST /api/payments/:id/refunds (owner). */
@@ -141,12 +231,15 @@ export type RefundRequest = z.input<typeof RefundRequest>;
 /** POST /api/bookings/:id/security-deposit: take it, give it back, or keep part for damage. */
 export const SecurityDepositRequest = z
   .object({
-    action: z.enum(['collect', 'refund', 'keep'], { error: 'Choose collect, refund or keep.' }),
+    action: z.enum(['collect', 'refund', 'keep', 'apply'], { error: 'Choose collect, refund, keep or apply.' }),
+    /** With `apply`: the (additional-charges) invoice the held deposit pays. */
+    invoiceId: z.uuid({ error: 'Choose the invoice the deposit pays.' }).optional(),
     amountCents: z.number({ error: 'Enter the amount.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
     method: z.enum(['cash', 'check', 'transfer', 'card'], { error: 'Choose how the money moved.' }).optional(),
     reason: z.string().trim().max(500).default(''),
   })
-  .refine((v) => v.action === 'keep' || !!v.method, { path: ['method'], message: 'Choose how the money moved.' })
+  .refine((v) => v.action === 'keep' || v.action === 'apply' || !!v.method, { path: ['method'], message: 'Choose how the money moved.' })
+  .refine((v) => v.action !== 'apply' || !!v.invoiceId, { path: ['invoiceId'], message: 'Choose the invoice the deposit pays.' })
   .refine((v) => v.action !== 'keep' || v.reason.length >= 3, { path: ['reason'], message: 'Say what the deposit pays for (the damage).' });
 export type SecurityDepositRequest = z.input<typeof SecurityDepositRequest>;
 
