@@ -13,16 +13,19 @@ export const INVOICE_CATEGORY_LABELS: Record<InvoiceCategory, string> = {
   tax: 'Sales tax',
 };
 
-/** The invoice's lines as copied from the quote, then subtotal, tax, total, paid and the balance left. */
+/** The invoice's lines, then subtotal, tax, total, what credit notes took off, paid and the balance left. */
 export function InvoiceLines({ invoice: i }: { invoice: InvoiceRow }) {
   const money = (cents: number) => formatMoney(cents, i.currency);
   const sums: [string, number, boolean][] = [
     ['Subtotal', i.subtotalCents, false],
     ['Tax', i.taxCents, false],
     ['Total', i.totalCents, true],
-    ['Paid', i.paidCents, false],
-    ['Balance', i.balanceCents, true],
   ];
+  // A credit note is settled when issued: nothing is paid on it and nothing is owed.
+  if (i.kind !== 'credit_note') {
+    if (i.creditedCents > 0) sums.push(['Credited', i.creditedCents, false]);
+    sums.push(['Paid', i.paidCents, false], ['Balance', i.balanceCents, true]);
+  }
   return (
     <Table caption={`Lines of invoice ${invoiceNumber(i)}`}>
       <THead>

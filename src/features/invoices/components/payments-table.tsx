@@ -7,7 +7,7 @@ import { linkClasses } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { formatZoned } from '@/lib/zoned-time';
 import { documentPdfUrl } from '@/features/documents/api/get-document-pdf';
-import { PAYMENT_METHOD_LABELS } from './invoice-labels';
+import { canRefundPayment, PAYMENT_METHOD_LABELS } from './invoice-labels';
 
 interface PaymentsTableProps {
   payments: readonly PaymentRow[];
@@ -16,7 +16,7 @@ interface PaymentsTableProps {
   caption: string;
   /** On an invoice's page: show only what each payment put on that invoice. */
   invoiceId?: string;
-  /** For the owner: a Refund button on each payment. */
+  /** For the owner: a Refund button on each payment that has money left to give back. */
   onRefund?: (payment: PaymentRow) => void;
 }
 
@@ -54,6 +54,7 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
               <Td className="text-right whitespace-nowrap tabular-nums">
                 {formatMoney(here ? here.amountCents : p.amountCents, currency)}
                 {here && here.amountCents !== p.amountCents ? <span className="block text-xs text-canvas-600">of {formatMoney(p.amountCents, currency)}</span> : null}
+                {p.refundedCents > 0 ? <span className="block text-xs text-canvas-600">{formatMoney(p.refundedCents, currency)} refunded</span> : null}
               </Td>
               {invoiceId ? null : (
                 <Td>
@@ -66,6 +67,11 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
                         <span className="tabular-nums">{formatMoney(a.amountCents, currency)}</span>
                       </li>
                     ))}
+                    {p.creditCents > 0 ? (
+                      <li className="whitespace-nowrap">
+                        Kept as credit <span className="tabular-nums">{formatMoney(p.creditCents, currency)}</span>
+                      </li>
+                    ) : null}
                   </ul>
                 </Td>
               )}
@@ -80,9 +86,11 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
               </Td>
               {onRefund ? (
                 <Td className="whitespace-nowrap">
-                  <Button size="sm" variant="secondary" onClick={() => onRefund(p)}>
-                    Refund<span className="sr-only"> the payment of {when}</span>
-                  </Button>
+                  {canRefundPayment(p) ? (
+                    <Button size="sm" variant="secondary" onClick={() => onRefund(p)}>
+                      Refund<span className="sr-only"> the payment of {when}</span>
+                    </Button>
+                  ) : null}
                 </Td>
               ) : null}
             </Tr>

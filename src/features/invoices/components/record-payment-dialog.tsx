@@ -3,6 +3,7 @@ import { formatMoney } from '@shared/money';
 import { RecordPaymentRequest, type InvoiceRow, type PaymentRow } from '@shared/schemas/invoices';
 import { FormMessage } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { Checkbox } from '@/components/ui/checkbox';
 import { Dialog } from '@/components/ui/dialog';
 import { Select } from '@/components/ui/select';
 import { TextField } from '@/components/ui/text-field';
@@ -17,6 +18,8 @@ type Values = Record<string, string>;
 
 /** One invoice takes `amountCents` (the schema's own field); a split has one field per invoice. */
 const SINGLE = 'amountCents';
+/** "true" when an overpayment on one invoice is to be kept as the customer's credit. */
+const KEEP = 'keepExcessAsCredit';
 const amountKey = (invoice: Pick<InvoiceRow, 'id'>, split: boolean) => (split ? `amount_${invoice.id}` : SINGLE);
 
 interface PaymentFormProps {
@@ -35,6 +38,9 @@ function toRequest(v: Values, invoices: readonly InvoiceRow[], split: boolean, t
   c.input.receivedAt = v.receivedAt ? (zonedInputToIso(v.receivedAt, timeZone) ?? v.receivedAt) : undefined;
   c.input.reference = v.reference;
   const parts: { invoiceId: string; amountCents: number }[] = [];
+  // Only one invoice can take more than its balance, and only when the office says so.
+  const keepExcess = !split && v[KEEP] === 'true';
+  c.input.keepExcessAsCredit = false;
   for (const invoice of invoices) {
     const key = amountKey(invoice, split);
     const parsed = parseDollars(v[key] ?? '', null);
@@ -42,9 +48,14 @@ function toRequest(v: Values, invoices: readonly InvoiceRow[], split: boolean, t
     else if (!parsed.value) {
       // In a split an empty field means "nothing on this invoice".
       if (!split) c.errors[key] = parsed.value === 0 ? 'The amount must be above zero.' : 'Enter the amount.';
-    } else if (parsed.value > invoice.balanceCents) {
-      c.errors[key] = `That is more than the balance of ${invoiceNumber(invoice)}, ${formatMoney(invoice.balanceCents, invoice.currency)}.`;
-    } else parts.push({ invoiceId: invoice.id, amountCents: parsed.value });
+    } else if (parsed.value > invoice.balanceCents && !keepExcess) {
+      c.errors[key] = split
+        ? `That is more than the balance of ${invoiceNumber(invoice)}, ${formatMoney(invoice.balanceCents, invoice.currency)}.`
+        : `That is more than the balance of ${invoiceNumber(invoice)}, ${formatMoney(invoice.balanceCents, invoice.currency)}. Lower it, or keep the extra as the customer’s credit.`;
+    } else {
+      if (parsed.value > invoice.balanceCents) c.input.keepExcessAsCredit = true;
+      parts.push({ invoiceId: invoice.id, amountCents: parsed.value });
+    }
   }
   if (split && parts.length === 0 && Object.keys(c.errors).length === 0 && invoices[0]) {
     c.errors[amountKey(invoices[0], split)] = 'Enter an amount for at least one invoice.';
@@ -77,7 +88,7 @@ function placeServerFields(fields: Record<string, string>, sent: readonly string
 }
 
 function PaymentForm({ invoices, split, timeZone, onDone, onCancel, record }: PaymentFormProps & { record: ReturnType<typeof useRecordPayment> }) {
-  const initial: Values = { method: '', receivedAt: isoToZonedInput(new Date().toISOString(), timeZone), reference: '' };
+  const initial: Values = { method: '', receivedAt: isoToZonedInput(new Date().toISOString(), timeZone), reference: '', [KEEP]: '' };
   for (const invoice of invoices) initial[amountKey(invoice, split)] = '';
   const sent = useRef<string[]>([]);
   const form = useZodForm(RecordPaymentRequest, initial, {
@@ -105,6 +116,10 @@ function PaymentForm({ invoices, split, timeZone, onDone, onCancel, record }: Pa
     record.mutate(body, { onSuccess: onDone, onError: showError });
   });
 
+  // On one invoice: what the typed amount is above the balance, if anything.
+  const single = split ? null : parseDollars(form.values[SINGLE] ?? '', 0);
+  const excessCents = single?.ok && single.value && invoices[0] && single.value > invoices[0].balanceCents ? single.value - invoices[0].balanceCents : 0;
+
   // What the split adds up to, from the fields that read as amounts.
   const total = invoices.reduce((sum, invoice) => {
     const parsed = parseDollars(form.values[amountKey(invoice, split)] ?? '', 0);
@@ -128,6 +143,18 @@ function PaymentForm({ invoices, split, timeZone, onDone, onCancel, record }: Pa
               {...form.field(SINGLE)}
             />
           )}
+          {excessCents > 0 ? (
+            <Checkbox
+              label={`Keep the extra ${formatMoney(excessCents, currency)} as the customer’s credit`}
+              hint="The credit can pay any of their invoices later, or the owner can pay it back."
+              checked={form.values[KEEP] === 'true'}
+              onChange={(event) => {
+                form.setValue(KEEP, event.target.checked ? 'true' : '');
+                // The amount's "more than the balance" message no longer applies once ticked.
+                if (event.target.checked) form.setValue(SINGLE, form.values[SINGLE] ?? '');
+              }}
+            />
+          ) : null}
           <TextField label="Received at" type="datetime-local" required hint={`On your company’s clock (${timeZone.replaceAll('_', ' ')}).`} {...form.field('receivedAt')} />
           <TextField label="Reference" autoComplete="off" maxLength={80} hint="A check number or transfer reference; optional." {...form.field('reference')} />
         </div>
