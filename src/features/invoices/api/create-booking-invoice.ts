@@ -3,7 +3,11 @@ import type { CreateInvoiceRequest, InvoiceRow } from '@shared/schemas/invoices'
 import { api } from '@/lib/api';
 import { moneyBaseKey } from './get-invoices';
 
-/** A draft deposit or balance invoice, its lines copied from the booking's quote. 409 `nothing_to_invoice` when all is invoiced. */
+/**
+ * A draft invoice: deposit or balance with its lines copied from the booking's quote (409
+ * `nothing_to_invoice` when all is invoiced), or additional charges line by line, taxed by the
+ * server at the booking's rate. Errors name the line: `lines.0.amountCents`.
+ */
 export const createBookingInvoice = ({ bookingId, body }: { bookingId: string; body: CreateInvoiceRequest }) =>
   api.post<InvoiceRow>(`/api/bookings/${encodeURIComponent(bookingId)}/invoices`, body);
 

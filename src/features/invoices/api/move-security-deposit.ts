@@ -6,15 +6,16 @@ import { moneyBaseKey } from './get-invoices';
 
 export interface SecurityDepositMoveRow {
   id: string;
-  kind: 'held' | 'refunded' | 'kept';
+  kind: 'held' | 'refunded' | 'kept' | 'applied';
   amountCents: number;
   /** What the booking holds after this move. */
   heldCents: number;
 }
 
 /**
- * Collect, return (owner only) or keep part for damage. 409 `more_than_held` on `amountCents`
- * when returning or keeping more than the booking holds.
+ * Collect, return (owner only), keep part for damage, or apply part to one of the booking's
+ * invoices. 409 `more_than_held` on `amountCents` when moving more than the booking holds (or,
+ * applying, more than the invoice's balance).
  */
 export const moveSecurityDeposit = ({ bookingId, body }: { bookingId: string; body: SecurityDepositRequest }) =>
   api.post<SecurityDepositMoveRow>(`/api/bookings/${encodeURIComponent(bookingId)}/security-deposit`, body);

@@ -10,11 +10,13 @@ import { linkClasses } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
 import { cn } from '@/lib/cn';
+import { useMe } from '@/features/auth/api/get-me';
 import { useCreateBookingInvoice } from '../api/create-booking-invoice';
 import { useBookingLedger } from '../api/get-booking-ledger';
 import { useBookingPayments } from '../api/get-booking-payments';
 import { useInvoices } from '../api/get-invoices';
-import { formatInvoiceDate, InvoiceStatusBadges, invoiceName } from './invoice-labels';
+import { AdditionalChargesDialog } from './additional-charges-dialog';
+import { formatInvoiceDate, InvoiceStatusBadges, invoiceName, refundableCents } from './invoice-labels';
 import { LedgerEntries } from './ledger-entries';
 import { PaymentsTable } from './payments-table';
 import { RecordPaymentDialog } from './record-payment-dialog';
@@ -35,7 +37,7 @@ interface MoneyPanelProps {
 }
 
 /** Money that may still come in on an invoice, as the server allows it. */
-const payable = (i: InvoiceRow) => i.can.recordPayment && i.balanceCents > 0;
+const payable = (i: InvoiceRow) => i.kind !== 'credit_note' && i.can.recordPayment && i.balanceCents > 0;
 
 function BookingInvoices({ invoices, timeZone, reference }: { invoices: readonly InvoiceRow[]; timeZone: string; reference: string }) {
   return (
@@ -86,18 +88,23 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
   const [paid, setPaid] = useState<PaymentRow | null>(null);
   const [refunding, setRefunding] = useState<PaymentRow | null>(null);
   const [refunded, setRefunded] = useState<{ amountCents: number } | null>(null);
+  const [charging, setCharging] = useState(false);
+  const me = useMe().data;
 
   const rows = invoices.data?.data ?? [];
   const open = rows.filter(payable);
   const money = (cents: number) => formatMoney(cents, currency);
   const paymentRows = payments.data?.data ?? [];
-  // The server says how much of each payment was refunded already.
-  const refundableCents = (p: PaymentRow) => Math.max(0, p.amountCents - p.refundedCents);
+  // The customer is the same on every invoice of the booking.
+  const customer = rows[0]?.customer;
 
-  const createInvoice = (kind: 'deposit' | 'balance') => {
+  const clearNotices = () => {
     setCreated(null);
     setPaid(null);
     setRefunded(null);
+  };
+  const createInvoice = (kind: 'deposit' | 'balance') => {
+    clearNotices();
     create.mutate({ bookingId: booking.id, body: { kind } }, { onSuccess: (invoice) => (setCreated(invoice), onChanged?.()) });
   };
   const creating = create.isPending ? create.variables?.body.kind : null;
@@ -118,6 +125,19 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
                 <Button size="sm" variant="secondary" disabled={dirty || create.isPending} isLoading={creating === 'balance'} onClick={() => createInvoice('balance')}>
                   Create balance invoice
                 </Button>
+                {/* Charges are typed line by line, not taken from the quote, so unsaved edits do not matter. */}
+                <Button
+                  size="sm"
+                  variant="secondary"
+                  disabled={create.isPending}
+                  onClick={() => {
+                    clearNotices();
+                    create.reset();
+                    setCharging(true);
+                  }}
+                >
+                  Additional charges
+                </Button>
               </>
             ) : null}
             {/* Shown from the invoices' own can.recordPayment, not from the booking. */}
@@ -125,9 +145,7 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
               <Button
                 size="sm"
                 onClick={() => {
-                  setCreated(null);
-                  setPaid(null);
-                  setRefunded(null);
+                  clearNotices();
                   create.reset();
                   setPaying(open);
                 }}
@@ -142,7 +160,7 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
       <LiveRegion>
         {created ? (
           <Alert tone="success">
-            {invoiceName(created)} created from the quote.{' '}
+            {invoiceName(created)} created {created.kind === 'additional' ? `for ${money(created.totalCents)}` : 'from the quote'}.{' '}
             <Link className={linkClasses} to={paths.app.invoice.getHref(created.id)}>
               Open it to check the lines and issue it
             </Link>
@@ -150,7 +168,8 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
           </Alert>
         ) : paid ? (
           <Alert tone="success">
-            Payment of {money(paid.amountCents)} recorded. The receipt is on its way to {booking.customerEmail}.
+            Payment of {money(paid.amountCents)} recorded{paid.creditCents > 0 ? `, ${money(paid.creditCents)} of it kept as the customer’s credit` : ''}. The receipt is on its way to{' '}
+            {booking.customerEmail}.
           </Alert>
         ) : refunded ? (
           <Alert tone="success">Refund of {money(refunded.amountCents)} recorded. The invoices it paid are owed again by that much.</Alert>
@@ -202,9 +221,7 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
             onRefund={
               canGiveMoneyBack
                 ? (payment) => {
-                    setCreated(null);
-                    setPaid(null);
-                    setRefunded(null);
+                    clearNotices();
                     setRefunding(payment);
                   }
                 : undefined
@@ -219,6 +236,7 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
         heldCents={ledger.data?.securityDepositHeldCents}
         ledgerError={ledger.isError}
         currency={currency}
+        openInvoices={open}
         canMove={canBill}
         canReturn={canGiveMoneyBack}
         onChanged={onChanged}
@@ -236,20 +254,39 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
           </Alert>
         ) : (
           <>
-            <dl className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-3">
+            <dl className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">
               {(
                 [
-                  ['Invoiced', ledger.data.invoicedCents],
-                  ['Paid', ledger.data.paidCents],
-                  ['Balance', ledger.data.balanceCents],
+                  ['Invoiced', ledger.data.invoicedCents, 'invoiced'],
+                  ['Credited', ledger.data.creditedCents, 'credited'],
+                  ['Paid', ledger.data.paidCents, 'paid'],
+                  ['Balance', ledger.data.balanceCents, 'balance'],
                 ] as const
-              ).map(([label, cents]) => (
+              ).map(([label, cents, id]) => (
                 <div key={label} className={cn('rounded-md border px-3 py-2', label === 'Balance' ? 'border-pine-300 bg-pine-50' : 'border-canvas-200 bg-canvas-50')}>
                   <dt className="text-sm text-canvas-700">{label}</dt>
-                  <dd className="text-lg font-semibold text-canvas-900 tabular-nums">{money(cents)}</dd>
+                  <dd className="text-lg font-semibold text-canvas-900 tabular-nums" data-testid={`booking-${id}`}>
+                    {money(cents)}
+                  </dd>
                 </div>
               ))}
             </dl>
+            <p className="mt-2 text-sm text-canvas-700">The balance is what was invoiced, less credit notes, less what was paid.</p>
+            {ledger.data.customerCreditCents !== 0 ? (
+              <Alert tone="info" className="mt-3" title="The customer has account credit.">
+                <span data-testid="booking-customer-credit">{money(ledger.data.customerCreditCents)}</span>, usable on any of their invoices: open an invoice with a balance and choose Pay
+                from credit.
+                {customer && me?.areas.includes('customers') ? (
+                  <>
+                    {' '}
+                    <Link className={linkClasses} to={paths.app.customer.getHref(customer.id)}>
+                      See {customer.name}’s credit
+                    </Link>
+                    .
+                  </>
+                ) : null}
+              </Alert>
+            ) : null}
             <details className="mt-3">
               <summary className="cursor-pointer text-sm font-semibold text-pine-700 underline hover:text-pine-900">
                 Ledger entries ({ledger.data.entries.length})
@@ -270,6 +307,17 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
         onDone={(payment) => {
           setPaying(null);
           setPaid(payment);
+          onChanged?.();
+        }}
+      />
+      <AdditionalChargesDialog
+        open={charging}
+        bookingId={booking.id}
+        currency={currency}
+        onCancel={() => setCharging(false)}
+        onDone={(invoice) => {
+          setCharging(false);
+          setCreated(invoice);
           onChanged?.();
         }}
       />
