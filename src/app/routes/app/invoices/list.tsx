@@ -85,7 +85,7 @@ export default function InvoicesRoute() {
 
   return (
     <>
-      <PageHeader title="Invoices" description="Deposit and balance invoices of every booking, what has been paid on them and what is still owed." />
+      <PageHeader title="Invoices" description="Every booking’s invoices (deposit, balance and additional charges) and credit notes: what was paid or credited on them and what is still owed." />
 
       <form role="search" aria-label="Filter invoices" className="mb-4 space-y-4" onSubmit={(e) => e.preventDefault()}>
         <fieldset>
