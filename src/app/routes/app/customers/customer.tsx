@@ -15,6 +15,8 @@ import { BookingsTable } from '@/features/bookings/components/bookings-table';
 import { customerQueryOptions, useCustomer } from '@/features/customers/api/get-customer';
 import { CertificatePanel } from '@/features/customers/components/certificate-panel';
 import { CustomerForm } from '@/features/customers/components/customer-form';
+import { useCustomerCredit } from '@/features/invoices/api/get-customer-credit';
+import { CustomerCreditPanel } from '@/features/invoices/components/customer-credit-panel';
 import { useOrganization } from '@/features/organization/api/get-organization';
 import { requireArea } from '../../../guards';
 
@@ -36,6 +38,31 @@ function CustomerBookings({ customerId }: { customerId: string }) {
     );
   if (bookings.data.data.length === 0) return <p className="text-sm text-canvas-700">No bookings yet.</p>;
   return <BookingsTable bookings={bookings.data.data} timeZone={organization.data?.timeZone ?? 'UTC'} caption="This customer’s bookings" hideCustomer />;
+}
+
+/** The customer's account credit, once there has been any; only for those who read money (the crew gets a 403). */
+function CustomerCredit({ customerId, customerName, canPayBack }: { customerId: string; customerName: string; canPayBack: boolean }) {
+  const credit = useCustomerCredit(customerId);
+  const organization = useOrganization();
+  if (credit.isPending) return null;
+  if (credit.isError)
+    return (
+      <Alert tone="danger" title="The customer’s account credit could not be loaded.">
+        {errorMessage(credit.error)}
+      </Alert>
+    );
+  if (credit.data.creditCents === 0 && credit.data.moves.length === 0) return null;
+  return (
+    <SectionCard title="Account credit" description="Money the customer has with you: overpayments kept as credit and credit notes beyond what an invoice still owed.">
+      <CustomerCreditPanel
+        customerId={customerId}
+        customerName={customerName}
+        credit={credit.data}
+        timeZone={organization.data?.timeZone ?? 'UTC'}
+        canPayBack={canPayBack}
+      />
+    </SectionCard>
+  );
 }
 
 export default function CustomerRoute() {
@@ -80,6 +107,7 @@ export default function CustomerRoute() {
         <SectionCard title={c.can.update ? 'Details' : 'Details (read only)'}>
           <CustomerForm customer={c} readOnly={!c.can.update} />
         </SectionCard>
+        {me?.areas.includes('invoices') ? <CustomerCredit customerId={c.id} customerName={c.name} canPayBack={me.user.role === 'owner'} /> : null}
         <SectionCard title="Tax exemption certificate" description="A copy of the customer’s resale or exemption certificate, for your sales tax records.">
           <CertificatePanel customer={c} />
         </SectionCard>
