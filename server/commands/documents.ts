@@ -39,7 +39,13 @@ export async function issueDocument(
     payment?: PaymentDetails;
     credit?: { amountCents: number; reason: string };
     /** An invoice record's own number and amount due (its PDF is its own document, never a version of another). */
-    invoice?: { number: string; schedule: { label: string; dueDate: string; amount: string }[] };
+    invoice?: {
+      number: string;
+      schedule: { label: string; dueDate: string; amount: string }[];
+      /** The invoice's own lines and totals, printed instead of the booking's whole charges table. */
+      lines?: { description: string; amount: string }[];
+      summary?: { label: string; amount: string; strong: boolean }[];
+    };
   } = {},
 ) {
   // Locking the booking serializes two people issuing at once: versions stay 1, 2, 3...
@@ -89,7 +95,11 @@ export async function issueDocument(
     payment: extra.payment,
     credit: extra.credit,
   });
-  if (extra.invoice) values.schedule = extra.invoice.schedule;
+  if (extra.invoice) {
+    values.schedule = extra.invoice.schedule;
+    if (extra.invoice.lines) values.lines = extra.invoice.lines.map((l) => ({ description: l.description, quantity: '', unitPrice: '', extraDays: '', total: l.amount }));
+    if (extra.invoice.summary) values.summary = extra.invoice.summary;
+  }
   const { source } = await templateSource(actor.organizationId, templateNameFor(kind), transaction);
   const rendered = await renderDocument({
     template: source,

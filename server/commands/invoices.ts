@@ -1,14 +1,16 @@
 import type { Request } from 'express';
 import { Op, QueryTypes } from 'sequelize';
 import { addDays, dateInZone } from '../../shared/dates';
-import { allocate, formatMoney, sum } from '../../shared/money';
-import { INVOICE_KIND_LABELS, type InvoiceLineRow } from '../../shared/schemas/invoices';
+import { allocate, formatMoney, percentOf, subtract, sum } from '../../shared/money';
+import {
+  ADDITIONAL_CHARGE_CATEGORY, ADDITIONAL_CHARGE_LABELS, ADDITIONAL_CHARGE_TAXABLE, INVOICE_KIND_LABELS, type AdditionalChargeLine, type InvoiceLineRow, type ReceiptMethod,
+} from '../../shared/schemas/invoices';
 import { sequelize, type Transaction } from '../db';
 import { badRequest, conflict, HttpError } from '../errors';
 import { ensureChart } from '../ledger/chart';
-import { securityDepositHeldCents } from '../ledger/balances';
+import { customerCreditCents, securityDepositHeldCents } from '../ledger/balances';
 import {
-  eventTiming, invoiceIssued, paymentReceived, postEntry, refundIssued, reverseEntry, securityDepositApplied, securityDepositHeld,
+  creditNote, creditRefunded, eventTiming, invoiceIssued, paymentReceived, postEntry, refundIssued, reverseEntry, securityDepositApplied, securityDepositHeld,
   securityDepositRefunded, type InvoiceBreakdown,
 } from '../ledger/post';
 import { Booking, BookingLine, Customer, Invoice, Organization, Payment, PaymentAllocation, Refund, SecurityDepositMove, type User } from '../models';
@@ -33,22 +35,28 @@ export function bookingBreakdown(booking: Full, organization: Organization) {
   const q = quoteBooking(booking, booking.lines, booking.customer, organization);
   const rental = sum(q.lines.filter((l) => l.kind === 'rental').map((l) => l.netCents));
   const fees = sum(q.lines.filter((l) => l.kind === 'fee').map((l) => l.netCents));
-  const breakdown: InvoiceBreakdown = {
+  const breakdown: Parts = {
     rentalCents: rental,
     deliveryLaborCents: fees + q.deliveryCents + q.setupLaborCents,
     damageWaiverCents: q.damageWaiverCents,
+    damageCents: 0,
     taxCents: q.taxCents,
   };
   return { quote: q, breakdown };
 }
 
-const PARTS: (keyof InvoiceBreakdown)[] = ['rentalCents', 'deliveryLaborCents', 'damageWaiverCents', 'taxCents'];
+type Parts = Required<InvoiceBreakdown>;
+const PARTS: (keyof Parts)[] = ['rentalCents', 'deliveryLaborCents', 'damageWaiverCents', 'damageCents', 'taxCents'];
+const partsOf = (i: Pick<Invoice, keyof Parts>): Parts => ({
+  rentalCents: i.rentalCents, deliveryLaborCents: i.deliveryLaborCents, damageWaiverCents: i.damageWaiverCents, damageCents: i.damageCents, taxCents: i.taxCents,
+});
 
-function linesFor(b: InvoiceBreakdown, label: string, reference: string): InvoiceLineRow[] {
+function linesFor(b: Parts, label: string, what: string): InvoiceLineRow[] {
   const lines: InvoiceLineRow[] = [
-    { description: `${label}: rentals, booking ${reference}`, category: 'rental', amountCents: b.rentalCents },
-    { description: `${label}: delivery, set-up and fees, booking ${reference}`, category: 'delivery_labor', amountCents: b.deliveryLaborCents },
-    { description: `${label}: damage waiver, booking ${reference}`, category: 'damage_waiver', amountCents: b.damageWaiverCents },
+    { description: `${label}: rentals, ${what}`, category: 'rental', amountCents: b.rentalCents },
+    { description: `${label}: delivery, set-up and fees, ${what}`, category: 'delivery_labor', amountCents: b.deliveryLaborCents },
+    { description: `${label}: damage waiver, ${what}`, category: 'damage_waiver', amountCents: b.damageWaiverCents },
+    { description: `${label}: damage and missing stock, ${what}`, category: 'damage', amountCents: b.damageCents },
     { description: 'Sales tax', category: 'tax', amountCents: b.taxCents },
   ];
   return lines.filter((l) => l.amountCents > 0);
@@ -66,21 +74,16 @@ export async function createInvoice(actor: User, bookingId: string, kind: 'depos
   const organization = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
   const { quote, breakdown } = bookingBreakdown(booking, organization);
   const earlier = await Invoice.findAll({ where: { bookingId, kind: { [Op.in]: ['deposit', 'balance'] }, status: { [Op.ne]: 'void' } }, transaction: t });
-  const invoiced: InvoiceBreakdown = {
-    rentalCents: sum(earlier.map((i) => i.rentalCents)),
-    deliveryLaborCents: sum(earlier.map((i) => i.deliveryLaborCents)),
-    damageWaiverCents: sum(earlier.map((i) => i.damageWaiverCents)),
-    taxCents: sum(earlier.map((i) => i.taxCents)),
-  };
-  const remaining = Object.fromEntries(PARTS.map((k) => [k, Math.max(0, breakdown[k] - invoiced[k])])) as unknown as InvoiceBreakdown;
+  const invoiced = Object.fromEntries(PARTS.map((k) => [k, sum(earlier.map((i) => i[k]))])) as unknown as Parts;
+  const remaining = Object.fromEntries(PARTS.map((k) => [k, Math.max(0, breakdown[k] - invoiced[k])])) as unknown as Parts;
   const remainingTotal = sum(PARTS.map((k) => remaining[k]));
-  let amounts: InvoiceBreakdown;
+  let amounts: Parts;
   if (kind === 'deposit') {
     const depositLeft = Math.min(quote.depositCents - sum(earlier.map((i) => i.totalCents)), remainingTotal);
     if (depositLeft <= 0) throw conflict('The deposit is already invoiced.', 'nothing_to_invoice');
     // The deposit is a share of every part of the total, split so no cent is lost.
     const parts = allocate(depositLeft, PARTS.map((k) => remaining[k]));
-    amounts = Object.fromEntries(PARTS.map((k, i) => [k, parts[i]])) as unknown as InvoiceBreakdown;
+    amounts = Object.fromEntries(PARTS.map((k, i) => [k, parts[i]])) as unknown as Parts;
   } else {
     if (remainingTotal <= 0) throw conflict('Everything on this booking is already invoiced.', 'nothing_to_invoice');
     amounts = remaining;
@@ -89,12 +92,48 @@ export async function createInvoice(actor: User, bookingId: string, kind: 'depos
   const invoice = await Invoice.create(
     {
       organizationId: actor.organizationId, bookingId, customerId: booking.customerId, kind,
-      lines: linesFor(amounts, INVOICE_KIND_LABELS[kind], booking.reference),
+      lines: linesFor(amounts, INVOICE_KIND_LABELS[kind], `booking ${booking.reference}`),
       ...amounts, totalCents: total, createdById: actor.id,
     },
     { transaction: t },
   );
   await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'invoice.created', subjectType: 'booking', subjectId: bookingId, data: { invoiceId: invoice.id, kind, totalCents: total } }, req, t);
+  return invoice;
+}
+
+/**
+ * A draft additional-charges invoice, line by line: damage and missing stock (damage recovery),
+ * a late return (more rental), cleaning (a service). Tax is worked out once for the invoice on the
+ * taxable lines at the booking's rate, none for an exempt customer. The office reviews and issues it.
+ */
+export async function createAdditionalInvoice(
+  actor: User,
+  bookingId: string,
+  input: { lines: { charge: AdditionalChargeLine['charge']; description: string; amountCents: number; taxable?: boolean }[] },
+  req: Request,
+  t: Transaction,
+) {
+  const booking = await loadBooking(actor.organizationId, bookingId, t);
+  if (!booking) throw new HttpError(404, 'not_found', 'That booking was not found.');
+  if (booking.status === 'cancelled') throw conflict('A cancelled booking is not invoiced.', 'cancelled');
+  if (input.lines.length === 0) throw badRequest('Add at least one charge.', { lines: 'Add at least one charge.' });
+  const byCategory = (category: InvoiceLineRow['category']) =>
+    sum(input.lines.filter((l) => ADDITIONAL_CHARGE_CATEGORY[l.charge] === category).map((l) => l.amountCents));
+  const taxableCents = sum(input.lines.filter((l) => l.taxable ?? ADDITIONAL_CHARGE_TAXABLE[l.charge]).map((l) => l.amountCents));
+  const taxCents = booking.customer.taxExempt ? 0 : percentOf(taxableCents, booking.taxRateBp);
+  const amounts: Parts = {
+    rentalCents: byCategory('rental'), deliveryLaborCents: byCategory('delivery_labor'), damageWaiverCents: 0, damageCents: byCategory('damage'), taxCents,
+  };
+  const lines: InvoiceLineRow[] = [
+    ...input.lines.map((l) => ({ description: `${ADDITIONAL_CHARGE_LABELS[l.charge]}: ${l.description}`, category: ADDITIONAL_CHARGE_CATEGORY[l.charge], amountCents: l.amountCents })),
+    ...(taxCents > 0 ? [{ description: 'Sales tax', category: 'tax' as const, amountCents: taxCents }] : []),
+  ];
+  const total = sum(PARTS.map((k) => amounts[k]));
+  const invoice = await Invoice.create(
+    { organizationId: actor.organizationId, bookingId, customerId: booking.customerId, kind: 'additional', lines, ...amounts, totalCents: total, createdById: actor.id },
+    { transaction: t },
+  );
+  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'invoice.created', subjectType: 'booking', subjectId: bookingId, data: { invoiceId: invoice.id, kind: 'additional', totalCents: total } }, req, t);
   return invoice;
 }
 
@@ -134,17 +173,19 @@ export async function issueInvoice(actor: User, invoiceId: string, req: Request,
     {
       organizationId: organization.id, bookingId: booking.id, customerId: booking.customerId, memo: `${INVOICE_KIND_LABELS[invoice.kind]} ${number}`,
       occurredAt: now, source: { type: 'invoice', id: invoice.id }, createdById: actor.id,
-      ...invoiceIssued(
-        { rentalCents: invoice.rentalCents, deliveryLaborCents: invoice.deliveryLaborCents, damageWaiverCents: invoice.damageWaiverCents, taxCents: invoice.taxCents },
-        eventTiming(booking.eventStart, now, organization.timeZone),
-      ),
+      ...invoiceIssued(partsOf(invoice), eventTiming(booking.eventStart, now, organization.timeZone)),
     },
     t,
   );
   invoice.ledgerEntryId = entry.id;
   const due = new Intl.DateTimeFormat('en-US', { timeZone: 'UTC', dateStyle: 'long' }).format(new Date(`${invoice.dueDate}T12:00:00Z`));
+  const money = (c: number) => formatMoney(c, organization.currency);
   const doc = await issueDocument(actor, booking.id, 'invoice', req, t, {
-    invoice: { number, schedule: [{ label: `${INVOICE_KIND_LABELS[invoice.kind]} ${number}`, dueDate: due, amount: formatMoney(invoice.totalCents, organization.currency) }] },
+    invoice: {
+      number,
+      schedule: [{ label: `${INVOICE_KIND_LABELS[invoice.kind]} ${number}`, dueDate: due, amount: money(invoice.totalCents) }],
+      ...invoiceTable(invoice, money),
+    },
   });
   invoice.documentId = doc.id;
   await invoice.save({ transaction: t });
@@ -152,10 +193,24 @@ export async function issueInvoice(actor: User, invoiceId: string, req: Request,
   return invoice;
 }
 
+/** The invoice's own lines and totals for its PDF (not the booking's whole charges table). */
+function invoiceTable(invoice: Invoice, money: (c: number) => string) {
+  return {
+    lines: invoice.lines.filter((l) => l.category !== 'tax').map((l) => ({ description: l.description, amount: money(l.amountCents) })),
+    summary: [
+      { label: 'Subtotal', amount: money(invoice.totalCents - invoice.taxCents), strong: false },
+      ...(invoice.taxCents > 0 ? [{ label: 'Sales tax', amount: money(invoice.taxCents), strong: false }] : []),
+      { label: invoice.kind === 'credit_note' ? 'Total credited' : 'Total', amount: money(invoice.totalCents), strong: true },
+    ],
+  };
+}
+
 /** Voids an issued invoice that nothing was paid on: its ledger entry is reversed, never deleted. */
 export async function voidInvoice(actor: User, invoiceId: string, reason: string, req: Request, t: Transaction) {
   const invoice = (await Invoice.findOne({ where: { id: invoiceId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
   if (invoice.status === 'void') throw conflict('This invoice is already void.', 'already_void');
+  if (invoice.kind === 'credit_note') throw conflict('A credit note is not voided: issue a new invoice for the amount instead.', 'credit_note');
+  if (invoice.creditedCents > 0) throw conflict('Credit notes were issued against this invoice: credit the rest instead of voiding it.', 'has_credit_notes');
   if (invoice.paidCents > 0) throw conflict('Money was received on this invoice: correct it with a credit note instead.', 'has_payments');
   if (invoice.ledgerEntryId) await reverseEntry(invoice.ledgerEntryId, `Invoice ${invoice.number} void: ${reason}`, actor.id, t);
   invoice.status = 'void';
@@ -165,18 +220,100 @@ export async function voidInvoice(actor: User, invoiceId: string, reason: string
   return invoice;
 }
 
-export function statusFor(invoice: Pick<Invoice, 'paidCents' | 'totalCents'>) {
-  return invoice.paidCents >= invoice.totalCents ? 'paid' : invoice.paidCents > 0 ? 'partly_paid' : 'open';
+/** Paid once money and credit notes cover the total; partly paid once anything was paid or credited. */
+export function statusFor(invoice: Pick<Invoice, 'paidCents' | 'totalCents' | 'creditedCents'>) {
+  const settled = invoice.paidCents + (invoice.creditedCents ?? 0);
+  return settled >= invoice.totalCents ? 'paid' : settled > 0 ? 'partly_paid' : 'open';
 }
 
+const openOf = (i: Pick<Invoice, 'paidCents' | 'totalCents' | 'creditedCents'>) => i.totalCents - i.paidCents - (i.creditedCents ?? 0);
+
 /**
- * Records a cash, check or transfer payment on one or more invoices of one booking: one ledger
- * entry, the invoices' paid amounts, and a receipt e-mailed to the customer. A part larger than
- * an invoice's balance is refused (409), whatever else the payment covers.
+ * A credit note against an issued invoice (office or owner): numbered in its own series, split
+ * over the invoice's parts in their proportions (to the cent), posted as the mirror of the
+ * invoice's entry. It lowers the invoice's open balance; what the invoice has no balance left
+ * for (it was paid) becomes the customer's account credit, to use or pay back.
+ */
+export async function createCreditNote(actor: User, invoiceId: string, input: { amountCents: number; reason: string }, req: Request, t: Transaction) {
+  const invoice = (await Invoice.findOne({ where: { id: invoiceId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
+  if (invoice.kind === 'credit_note') throw conflict('A credit note is not credited again.', 'credit_note');
+  if (!['open', 'partly_paid', 'paid'].includes(invoice.status)) throw conflict(`Only an issued invoice is credited; this one is ${invoice.status}.`, 'not_issued');
+  const organization = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  const money = (c: number) => formatMoney(c, organization.currency);
+  const creditable = invoice.totalCents - invoice.creditedCents;
+  if (input.amountCents > creditable) {
+    throw conflict(`At most ${money(creditable)} of ${invoice.number} can still be credited.`, 'credit_too_large', { amountCents: `At most ${money(creditable)}.` });
+  }
+  const booking = (await loadBooking(actor.organizationId, invoice.bookingId, t))!;
+  const shares = allocate(input.amountCents, PARTS.map((k) => invoice[k]));
+  const amounts = Object.fromEntries(PARTS.map((k, i) => [k, shares[i]])) as unknown as Parts;
+  const offInvoice = Math.min(input.amountCents, openOf(invoice));
+  const toCredit = subtract(input.amountCents, offInvoice);
+  const now = new Date();
+  const today = dateInZone(now, organization.timeZone);
+  const year = Number(today.slice(0, 4));
+  const series = `${rulesOf(organization).invoicePrefix}-CR`;
+  const number = `${series}-${year}-${String(await nextNumber(organization.id, year, series, t)).padStart(4, '0')}`;
+  const note = await Invoice.create(
+    {
+      organizationId: organization.id, bookingId: invoice.bookingId, customerId: invoice.customerId, kind: 'credit_note', number, status: 'paid',
+      issueDate: today, dueDate: null, lines: linesFor(amounts, 'Credit', `invoice ${invoice.number}`), ...amounts, totalCents: input.amountCents,
+      creditsInvoiceId: invoice.id, reason: input.reason, createdById: actor.id,
+    },
+    { transaction: t },
+  );
+  await ensureChart(organization.id, t);
+  const entry = await postEntry(
+    {
+      organizationId: organization.id, bookingId: invoice.bookingId, customerId: invoice.customerId, memo: `Credit note ${number} on ${invoice.number}: ${input.reason}`,
+      occurredAt: now, source: { type: 'invoice', id: note.id }, createdById: actor.id,
+      ...creditNote(amounts, eventTiming(booking.eventStart, now, organization.timeZone), toCredit),
+    },
+    t,
+  );
+  invoice.creditedCents += offInvoice;
+  invoice.status = statusFor(invoice);
+  await invoice.save({ transaction: t });
+  const doc = await issueDocument(actor, booking.id, 'credit_note', req, t, {
+    credit: { amountCents: input.amountCents, reason: input.reason },
+    invoice: {
+      number,
+      schedule: [
+        { label: `Taken off invoice ${invoice.number}`, dueDate: '', amount: money(offInvoice) },
+        ...(toCredit > 0 ? [{ label: 'Kept as your account credit, for a later invoice or paid back to you', dueDate: '', amount: money(toCredit) }] : []),
+      ],
+      ...invoiceTable(note, money),
+    },
+  });
+  note.ledgerEntryId = entry.id;
+  note.documentId = doc.id;
+  await note.save({ transaction: t });
+  if (booking.customer.email) await sendDocument(actor, doc, booking.customer.email, req, t);
+  await audit(
+    { organizationId: organization.id, actorUserId: actor.id, action: 'invoice.credited', subjectType: 'booking', subjectId: booking.id, data: { invoiceId: invoice.id, creditNoteId: note.id, number, amountCents: input.amountCents, toCreditCents: toCredit, reason: input.reason } },
+    req,
+    t,
+  );
+  return note;
+}
+
+const METHOD_WORDS: Record<ReceiptMethod, string> = {
+  cash: 'cash', check: 'check', transfer: 'bank transfer', card: 'card', security_deposit: 'security deposit', credit: 'account credit',
+};
+
+/**
+ * Records a payment on one or more invoices of one booking: one ledger entry, the invoices' paid
+ * amounts, and a receipt e-mailed to the customer. Money (cash, check, transfer, card) or what
+ * the customer already has with us (the held security deposit, their account credit): callers
+ * check those sources first. A part larger than an invoice's balance is refused (409), unless the
+ * payment is on one invoice and `keepExcessAsCredit` keeps the rest as the customer's credit.
  */
 export async function recordPayment(
   actor: User,
-  input: { method: 'cash' | 'check' | 'transfer'; reference: string; receivedAt: Date; allocations: { invoiceId: string; amountCents: number }[]; fieldFor: (i: number) => string },
+  input: {
+    method: ReceiptMethod; reference: string; receivedAt: Date; allocations: { invoiceId: string; amountCents: number }[]; fieldFor: (i: number) => string;
+    keepExcessAsCredit?: boolean;
+  },
   req: Request,
   t: Transaction,
 ) {
@@ -189,52 +326,108 @@ export async function recordPayment(
   input.allocations.forEach((a, i) => {
     const inv = byId.get(a.invoiceId);
     if (!inv) fields[input.fieldFor(i).replace('amountCents', 'invoiceId')] = 'Unknown invoice.';
+    else if (inv.kind === 'credit_note') fields[input.fieldFor(i)] = `${inv.number} is a credit note: it takes no payment.`;
     else if (!['open', 'partly_paid'].includes(inv.status)) fields[input.fieldFor(i)] = `Invoice ${inv.number ?? '(draft)'} is ${inv.status.replace('_', ' ')}: it takes no payment.`;
   });
   if (Object.keys(fields).length) throw badRequest('Some invoices cannot take this payment.', fields);
   const bookingIds = new Set(invoices.map((i) => i.bookingId));
   if (bookingIds.size !== 1) throw badRequest('A payment covers invoices of one booking.', { allocations: 'Pick invoices of one booking.' });
   const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  const keepExcess = !!input.keepExcessAsCredit && input.allocations.length === 1 && input.method !== 'credit' && input.method !== 'security_deposit';
   const over: Record<string, string> = {};
-  input.allocations.forEach((a, i) => {
+  const applied = input.allocations.map((a, i) => {
     const inv = byId.get(a.invoiceId)!;
-    const open = inv.totalCents - inv.paidCents;
-    if (a.amountCents > open) over[input.fieldFor(i)] = `More than the ${formatMoney(open, currency)} left on ${inv.number}.`;
+    const open = openOf(inv);
+    if (a.amountCents <= open) return a.amountCents;
+    if (keepExcess) return open;
+    over[input.fieldFor(i)] = `More than the ${formatMoney(open, currency)} left on ${inv.number}.`;
+    return 0;
   });
   if (Object.keys(over).length) throw conflict('The payment is more than what is owed on the invoice.', 'overpayment', over);
 
   const bookingId = invoices[0].bookingId;
   const booking = (await Booking.findByPk(bookingId, { transaction: t, lock: t.LOCK.UPDATE }))!;
   const total = sum(input.allocations.map((a) => a.amountCents));
+  const toCredit = subtract(total, sum(applied));
   await ensureChart(actor.organizationId, t);
   const payment = await Payment.create(
-    { organizationId: actor.organizationId, bookingId, customerId: booking.customerId, method: input.method, amountCents: total, reference: input.reference, receivedAt: input.receivedAt, recordedById: actor.id },
+    {
+      organizationId: actor.organizationId, bookingId, customerId: booking.customerId, method: input.method, amountCents: total, creditCents: toCredit,
+      reference: input.reference, receivedAt: input.receivedAt, recordedById: actor.id,
+    },
     { transaction: t },
   );
+  const words = METHOD_WORDS[input.method];
   const entry = await postEntry(
     {
-      organizationId: actor.organizationId, bookingId, customerId: booking.customerId, memo: `Payment by ${input.method}${input.reference ? ` (${input.reference})` : ''}`,
-      occurredAt: input.receivedAt, source: { type: 'payment', id: payment.id }, createdById: actor.id, ...paymentReceived(total, input.method),
+      organizationId: actor.organizationId, bookingId, customerId: booking.customerId,
+      memo: `Payment from ${words}${input.reference ? ` (${input.reference})` : ''}${toCredit > 0 ? `, ${formatMoney(toCredit, currency)} kept as credit` : ''}`,
+      occurredAt: input.receivedAt, source: { type: 'payment', id: payment.id }, createdById: actor.id, ...paymentReceived(total, input.method, toCredit),
     },
     t,
   );
-  for (const a of input.allocations) {
+  for (const [i, a] of input.allocations.entries()) {
     const inv = byId.get(a.invoiceId)!;
-    await PaymentAllocation.create({ organizationId: actor.organizationId, paymentId: payment.id, invoiceId: inv.id, amountCents: a.amountCents }, { transaction: t });
-    inv.paidCents += a.amountCents;
+    if (applied[i] === 0) continue;
+    await PaymentAllocation.create({ organizationId: actor.organizationId, paymentId: payment.id, invoiceId: inv.id, amountCents: applied[i] }, { transaction: t });
+    inv.paidCents += applied[i];
     inv.status = statusFor(inv);
     await inv.save({ transaction: t });
   }
   const receipt = await issueDocument(actor, bookingId, 'receipt', req, t, {
-    payment: { amountCents: total, method: input.method, receivedAt: input.receivedAt, reference: input.reference || invoices.map((i) => i.number).join(', ') },
+    payment: { amountCents: total, method: words, receivedAt: input.receivedAt, reference: input.reference || invoices.map((i) => i.number).join(', ') },
   });
   payment.ledgerEntryId = entry.id;
   payment.receiptDocumentId = receipt.id;
   await payment.save({ transaction: t });
   const customer = (await Customer.findByPk(booking.customerId, { transaction: t }))!;
   if (customer.email) await sendDocument(actor, receipt, customer.email, req, t);
-  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.recorded', subjectType: 'booking', subjectId: bookingId, data: { paymentId: payment.id, amountCents: total, method: input.method } }, req, t);
+  await audit(
+    { organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.recorded', subjectType: 'booking', subjectId: bookingId, data: { paymentId: payment.id, amountCents: total, method: input.method, creditCents: toCredit } },
+    req,
+    t,
+  );
   return payment;
+}
+
+/** Pays an invoice from the customer's account credit; never more than the credit or the invoice's balance. */
+export async function applyCredit(actor: User, invoiceId: string, amountCents: number, req: Request, t: Transaction) {
+  const invoice = (await Invoice.findOne({ where: { id: invoiceId, organizationId: actor.organizationId }, transaction: t }))!;
+  // The customer row is the lock that keeps two uses of the same credit from both passing.
+  await Customer.findByPk(invoice.customerId, { transaction: t, lock: t.LOCK.UPDATE });
+  const available = await customerCreditCents(invoice.customerId, { transaction: t });
+  const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  if (amountCents > available) {
+    throw conflict(`The customer has ${formatMoney(available, currency)} of credit.`, 'more_than_credit', { amountCents: `At most ${formatMoney(available, currency)}.` });
+  }
+  await recordPayment(actor, { method: 'credit', reference: '', receivedAt: new Date(), allocations: [{ invoiceId, amountCents }], fieldFor: () => 'amountCents' }, req, t);
+  return (await Invoice.findByPk(invoiceId, { transaction: t }))!;
+}
+
+/** Pays the customer's account credit back to them (owner); never more than the credit. */
+export async function refundCredit(
+  actor: User,
+  customerId: string,
+  input: { amountCents: number; method: 'cash' | 'check' | 'transfer' | 'card'; reason: string },
+  req: Request,
+  t: Transaction,
+) {
+  await Customer.findOne({ where: { id: customerId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE });
+  const available = await customerCreditCents(customerId, { transaction: t });
+  const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  if (input.amountCents > available) {
+    throw conflict(`The customer has ${formatMoney(available, currency)} of credit.`, 'more_than_credit', { amountCents: `At most ${formatMoney(available, currency)}.` });
+  }
+  await ensureChart(actor.organizationId, t);
+  const entry = await postEntry(
+    {
+      organizationId: actor.organizationId, customerId, memo: `Credit paid back by ${METHOD_WORDS[input.method]}: ${input.reason}`.slice(0, 400),
+      occurredAt: new Date(), source: { type: 'customer', id: customerId }, createdById: actor.id, ...creditRefunded(input.amountCents, input.method),
+    },
+    t,
+  );
+  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'credit.refunded', subjectType: 'customer', subjectId: customerId, data: { amountCents: input.amountCents, method: input.method, reason: input.reason } }, req, t);
+  return { entryId: entry.id, creditCents: available - input.amountCents };
 }
 
 /**
@@ -245,7 +438,8 @@ export async function refundPayment(actor: User, paymentId: string, input: { amo
   const payment = (await Payment.findOne({ where: { id: paymentId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
   await Booking.findByPk(payment.bookingId, { transaction: t, lock: t.LOCK.UPDATE });
   const already = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id }, transaction: t })) ?? 0);
-  const refundable = payment.amountCents - already;
+  // The part kept as account credit goes back through the credit (refundCredit), not the payment.
+  const refundable = payment.amountCents - payment.creditCents - already;
   const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
   if (input.amountCents > refundable) {
     throw conflict(`At most ${formatMoney(refundable, currency)} of this payment can be refunded.`, 'refund_too_large', { amountCents: `At most ${formatMoney(refundable, currency)}.` });
@@ -278,11 +472,15 @@ export async function refundPayment(actor: User, paymentId: string, input: { amo
   return refund;
 }
 
-/** Takes, returns or keeps (for damage) a booking's refundable security deposit; never returns or keeps more than is held. */
+/**
+ * Takes, returns or keeps (for damage) a booking's refundable security deposit, or applies it as
+ * payment of one of the booking's invoices (an additional-charges invoice for damage); never
+ * returns, keeps or applies more than is held.
+ */
 export async function moveSecurityDeposit(
   actor: User,
   bookingId: string,
-  input: { action: 'collect' | 'refund' | 'keep'; amountCents: number; method?: 'cash' | 'check' | 'transfer' | 'card'; reason: string },
+  input: { action: 'collect' | 'refund' | 'keep' | 'apply'; amountCents: number; method?: 'cash' | 'check' | 'transfer' | 'card'; reason: string; invoiceId?: string },
   req: Request,
   t: Transaction,
 ) {
@@ -295,20 +493,37 @@ export async function moveSecurityDeposit(
       throw conflict(`Only ${formatMoney(held, currency)} of security deposit is held on this booking.`, 'more_than_held', { amountCents: `At most ${formatMoney(held, currency)}.` });
     }
   }
+  if (input.action === 'apply') {
+    const invoice = await Invoice.findOne({ where: { id: input.invoiceId!, organizationId: actor.organizationId, bookingId }, transaction: t });
+    if (!invoice) throw badRequest('Choose an invoice of this booking.', { invoiceId: 'Choose an invoice of this booking.' });
+    const payment = await recordPayment(
+      actor,
+      { method: 'security_deposit', reference: input.reason, receivedAt: new Date(), allocations: [{ invoiceId: invoice.id, amountCents: input.amountCents }], fieldFor: () => 'amountCents' },
+      req,
+      t,
+    );
+    return SecurityDepositMove.create(
+      {
+        organizationId: actor.organizationId, bookingId, kind: 'applied', amountCents: input.amountCents, method: null,
+        reason: input.reason || `Applied to ${invoice.number}`, ledgerEntryId: payment.ledgerEntryId, createdById: actor.id,
+      },
+      { transaction: t },
+    );
+  }
   const draft =
     input.action === 'collect'
       ? securityDepositHeld(input.amountCents, input.method!)
       : input.action === 'refund'
         ? securityDepositRefunded(input.amountCents, input.method!)
         : securityDepositApplied(input.amountCents, 'damage');
-  const memo = { collect: 'Security deposit received', refund: 'Security deposit returned', keep: `Security deposit kept: ${input.reason}` }[input.action];
+  const memo = { collect: 'Security deposit received', refund: 'Security deposit returned', keep: `Security deposit kept: ${input.reason}` }[input.action as 'collect' | 'refund' | 'keep'];
   const entry = await postEntry(
     { organizationId: actor.organizationId, bookingId, customerId: booking.customerId, memo: memo.slice(0, 400), occurredAt: new Date(), source: { type: 'booking', id: bookingId }, createdById: actor.id, ...draft },
     t,
   );
   const move = await SecurityDepositMove.create(
     {
-      organizationId: actor.organizationId, bookingId, kind: ({ collect: 'held', refund: 'refunded', keep: 'kept' } as const)[input.action],
+      organizationId: actor.organizationId, bookingId, kind: ({ collect: 'held', refund: 'refunded', keep: 'kept' } as const)[input.action as 'collect' | 'refund' | 'keep'],
       amountCents: input.amountCents, method: input.method ?? null, reason: input.reason, ledgerEntryId: entry.id, createdById: actor.id,
     },
     { transaction: t },

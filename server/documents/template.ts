@@ -73,16 +73,17 @@ function escapeValues<T>(value: T): T {
 hb.registerHelper('lineItems', function (options: Handlebars.HelperOptions) {
   const { raw } = rawOf(options);
   const withExtraDays = raw.lines.some((l) => l.extraDays !== '');
+  // An invoice record's own lines are amounts only (a share of the booking, a damage charge): no quantity or unit price.
+  const withQuantities = raw.lines.some((l) => l.quantity !== '' || l.unitPrice !== '');
   const table: TableBlock = {
     type: 'table',
     columns: [
       { label: 'Description', align: 'left' },
-      { label: 'Qty', align: 'right' },
-      { label: 'Unit price', align: 'right' },
+      ...(withQuantities ? [{ label: 'Qty', align: 'right' as const }, { label: 'Unit price', align: 'right' as const }] : []),
       ...(withExtraDays ? [{ label: 'Extra days', align: 'right' as const }] : []),
       { label: 'Amount', align: 'right' },
     ],
-    rows: raw.lines.map((l) => [l.description, l.quantity, l.unitPrice, ...(withExtraDays ? [l.extraDays] : []), l.total]),
+    rows: raw.lines.map((l) => [l.description, ...(withQuantities ? [l.quantity, l.unitPrice] : []), ...(withExtraDays ? [l.extraDays] : []), l.total]),
     totals: raw.summary.map((s) => ({ label: s.label, amount: s.amount, strong: s.strong })),
   };
   return blockMarkdown(table);

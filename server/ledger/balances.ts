@@ -129,6 +129,17 @@ export function paidCents(bookingId: string, opts: Opts = {}): Promise<number> {
   );
 }
 
+/** The customer's account credit (overpayments, credit notes on paid invoices), across all their bookings. */
+export function customerCreditCents(customerId: string, opts: Opts = {}): Promise<number> {
+  return scalar(
+    `SELECT coalesce(sum(l.credit_cents - l.debit_cents), 0)::bigint AS cents
+       FROM journal_entries e JOIN journal_lines l ON l.entry_id = e.id JOIN accounts a ON a.id = l.account_id
+      WHERE e.customer_id = :id AND a.system_key = 'customer_credit'`,
+    { id: customerId },
+    opts.transaction,
+  );
+}
+
 /** The refundable security deposit still held for the booking. */
 export function securityDepositHeldCents(bookingId: string, opts: Opts = {}): Promise<number> {
   return scalar(

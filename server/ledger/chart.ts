@@ -5,7 +5,7 @@ import type { AccountType } from '../models/Account';
 /** The roles the posting rules post to. A company may renumber or rename the accounts behind them. */
 export const SYSTEM_KEYS = [
   'cash_on_hand', 'bank', 'card_clearing', 'accounts_receivable',
-  'customer_deposits', 'security_deposits_held', 'sales_tax_payable',
+  'customer_deposits', 'customer_credit', 'security_deposits_held', 'sales_tax_payable',
   'rental_revenue', 'delivery_labor_revenue', 'damage_waiver_revenue', 'damage_recovery', 'refunds',
 ] as const;
 export type SystemKey = (typeof SYSTEM_KEYS)[number];
@@ -30,6 +30,9 @@ export const DEFAULT_CHART: readonly ChartAccount[] = [
   { code: '1200', name: 'Accounts receivable', type: 'asset', systemKey: 'accounts_receivable' },
   // Billed or paid before the event: a contract liability until the event (ASC 606-10-45-2).
   { code: '2100', name: 'Customer deposits', type: 'liability', systemKey: 'customer_deposits' },
+  // Money the customer has with us beyond what they owe (an overpayment, a credit note on a paid
+  // invoice): owed back or used on their next invoice, so a liability.
+  { code: '2120', name: 'Customer credit', type: 'liability', systemKey: 'customer_credit' },
   // Refundable security deposits: the customer's money until settled, never revenue while held.
   { code: '2150', name: 'Security deposits held', type: 'liability', systemKey: 'security_deposits_held' },
   { code: '2200', name: 'Sales tax payable', type: 'liability', systemKey: 'sales_tax_payable' },

@@ -13,7 +13,7 @@ import type { RevenueKey, SystemKey } from './chart';
 
 export type EntryKind =
   | 'invoice_issued' | 'payment_received' | 'refund' | 'credit_note' | 'deposit_earned'
-  | 'security_deposit_held' | 'security_deposit_refunded' | 'security_deposit_applied' | 'reversal';
+  | 'security_deposit_held' | 'security_deposit_refunded' | 'security_deposit_applied' | 'credit_refunded' | 'reversal';
 
 export interface LineDraft {
   account: SystemKey;
@@ -30,13 +30,16 @@ export interface InvoiceBreakdown {
   rentalCents: number;
   deliveryLaborCents: number;
   damageWaiverCents: number;
+  /** Damage and missing stock billed after the event: always damage recovery, never a deposit. */
+  damageCents?: number;
   taxCents: number;
 }
 
 /** Whether a document is dated before the event day (in the company's zone) or on/after it. */
 export type EventTiming = 'before_event' | 'on_or_after_event';
 
-export type PaymentMethod = 'cash' | 'check' | 'transfer' | 'card';
+/** Money, or what the customer already had with us: the held security deposit or their account credit. */
+export type PaymentMethod = 'cash' | 'check' | 'transfer' | 'card' | 'security_deposit' | 'credit';
 
 /**
  * Where money taken by each method lands. Cash and checks in hand wait in cash on hand until the
@@ -52,6 +55,12 @@ export function receivingAccount(method: PaymentMethod): SystemKey {
       return 'bank';
     case 'card':
       return 'card_clearing';
+    // Paid from the held deposit: the liability goes down instead of cash coming in.
+    case 'security_deposit':
+      return 'security_deposits_held';
+    // Paid from account credit: likewise, the credit we owe the customer goes down.
+    case 'credit':
+      return 'customer_credit';
   }
 }
 
@@ -85,13 +94,20 @@ function assertAmount(amountCents: number) {
  */
 export function invoiceIssued(b: InvoiceBreakdown, timing: EventTiming): EntryDraft {
   assertBreakdown(b);
-  const total = sum([b.rentalCents, b.deliveryLaborCents, b.damageWaiverCents, b.taxCents]);
+  const damage = b.damageCents ?? 0;
+  const total = sum([b.rentalCents, b.deliveryLaborCents, b.damageWaiverCents, damage, b.taxCents]);
   const sides: LineDraft[] = revenueParts(b).map(([key, cents]) =>
     timing === 'before_event' ? { account: 'customer_deposits', creditCents: cents, revenueKey: key } : { account: key, creditCents: cents },
   );
   return {
     kind: 'invoice_issued',
-    lines: nonZero([{ account: 'accounts_receivable', debitCents: total }, ...sides, { account: 'sales_tax_payable', creditCents: b.taxCents }]),
+    lines: nonZero([
+      { account: 'accounts_receivable', debitCents: total },
+      ...sides,
+      // Damage is billed for harm already done: income when billed, whatever the event date.
+      { account: 'damage_recovery', creditCents: damage },
+      { account: 'sales_tax_payable', creditCents: b.taxCents },
+    ]),
   };
 }
 
@@ -102,27 +118,58 @@ export function invoiceIssued(b: InvoiceBreakdown, timing: EventTiming): EntryDr
  *   less becomes revenue on the event date.
  * - On or after the event: Dr refunds and allowances (contra revenue) rather than the revenue
  *   accounts themselves, so the books show gross revenue and what was given back separately.
- * Either way net revenue ends the same once the event date has passed.
+ * Either way net revenue ends the same once the event date has passed. A damage part always goes
+ * to refunds and allowances: damage recovery was income when billed.
+ *
+ * `toCreditCents`: the part the invoice had no balance left for (it was paid). The customer is
+ * owed that money: Cr customer credit instead of AR, so AR never shows a debt paid twice.
  */
-export function creditNote(b: InvoiceBreakdown, timing: EventTiming): EntryDraft {
+export function creditNote(b: InvoiceBreakdown, timing: EventTiming, toCreditCents = 0): EntryDraft {
   assertBreakdown(b);
-  const preTax = sum([b.rentalCents, b.deliveryLaborCents, b.damageWaiverCents]);
+  const damage = b.damageCents ?? 0;
+  const preTax = sum([b.rentalCents, b.deliveryLaborCents, b.damageWaiverCents, damage]);
+  const total = sum([preTax, b.taxCents]);
+  if (!Number.isSafeInteger(toCreditCents) || toCreditCents < 0 || toCreditCents > total) throw new RangeError(`The credit part must be whole cents between 0 and ${total}; got ${toCreditCents}.`);
   const sides: LineDraft[] =
     timing === 'before_event'
-      ? revenueParts(b).map(([key, cents]) => ({ account: 'customer_deposits', debitCents: cents, revenueKey: key }))
+      ? [...revenueParts(b).map(([key, cents]): LineDraft => ({ account: 'customer_deposits', debitCents: cents, revenueKey: key })), { account: 'refunds', debitCents: damage }]
       : [{ account: 'refunds', debitCents: preTax }];
   return {
     kind: 'credit_note',
-    lines: nonZero([...sides, { account: 'sales_tax_payable', debitCents: b.taxCents }, { account: 'accounts_receivable', creditCents: sum([preTax, b.taxCents]) }]),
+    lines: nonZero([
+      ...sides,
+      { account: 'sales_tax_payable', debitCents: b.taxCents },
+      { account: 'accounts_receivable', creditCents: subtract(total, toCreditCents) },
+      { account: 'customer_credit', creditCents: toCreditCents },
+    ]),
   };
 }
 
-/** Payment received: the money arrives (Dr cash, bank or card clearing) and the customer owes that much less (Cr AR). */
-export function paymentReceived(amountCents: number, method: PaymentMethod): EntryDraft {
+/**
+ * Payment received: the money arrives (Dr cash, bank or card clearing; or the held deposit or
+ * account credit goes down) and the customer owes that much less (Cr AR). `toCreditCents`, the
+ * part of an overpayment kept for the customer, is not owed by them: Cr customer credit.
+ */
+export function paymentReceived(amountCents: number, method: PaymentMethod, toCreditCents = 0): EntryDraft {
   assertAmount(amountCents);
+  if (!Number.isSafeInteger(toCreditCents) || toCreditCents < 0 || toCreditCents > amountCents) throw new RangeError(`The credit part must be whole cents between 0 and ${amountCents}; got ${toCreditCents}.`);
+  if (toCreditCents > 0 && method === 'credit') throw new RangeError('Account credit cannot overpay into account credit.');
   return {
     kind: 'payment_received',
-    lines: [{ account: receivingAccount(method), debitCents: amountCents }, { account: 'accounts_receivable', creditCents: amountCents }],
+    lines: nonZero([
+      { account: receivingAccount(method), debitCents: amountCents },
+      { account: 'accounts_receivable', creditCents: subtract(amountCents, toCreditCents) },
+      { account: 'customer_credit', creditCents: toCreditCents },
+    ]),
+  };
+}
+
+/** Account credit paid back to the customer: the credit goes (Dr customer credit) with the money (Cr cash, bank or card clearing). */
+export function creditRefunded(amountCents: number, method: 'cash' | 'check' | 'transfer' | 'card'): EntryDraft {
+  assertAmount(amountCents);
+  return {
+    kind: 'credit_refunded',
+    lines: [{ account: 'customer_credit', debitCents: amountCents }, { account: receivingAccount(method), creditCents: amountCents }],
   };
 }
 

@@ -21,6 +21,11 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare taxCents: number;
   declare totalCents: number;
   declare paidCents: CreationOptional<number>;
+  declare creditedCents: CreationOptional<number>;
+  /** On a credit note: the invoice it lowers. */
+  declare creditsInvoiceId: CreationOptional<string | null>;
+  /** On a credit note: why. */
+  declare reason: CreationOptional<string | null>;
   declare documentId: CreationOptional<string | null>;
   declare ledgerEntryId: CreationOptional<string | null>;
   declare voidReason: CreationOptional<string | null>;
@@ -51,6 +56,9 @@ Invoice.init(
     taxCents: cents(),
     totalCents: cents(),
     paidCents: cents(),
+    creditedCents: cents(),
+    creditsInvoiceId: { type: DataTypes.UUID, allowNull: true },
+    reason: { type: DataTypes.STRING(500), allowNull: true },
     documentId: { type: DataTypes.UUID, allowNull: true },
     ledgerEntryId: { type: DataTypes.UUID, allowNull: true },
     voidReason: { type: DataTypes.STRING(500), allowNull: true },

@@ -1,3 +1,4 @@
+import { RECEIPT_METHODS, type ReceiptMethod } from '../../shared/schemas/invoices';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
 import { sequelize } from '../db';
 
@@ -6,7 +7,9 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare organizationId: string;
   declare bookingId: string;
   declare customerId: string;
-  declare method: 'cash' | 'check' | 'transfer' | 'card';
+  declare method: ReceiptMethod;
+  /** The part of an overpayment kept as the customer's credit. */
+  declare creditCents: CreationOptional<number>;
   declare amountCents: number;
   declare reference: CreationOptional<string>;
   declare receivedAt: Date;
@@ -22,7 +25,8 @@ Payment.init(
     organizationId: { type: DataTypes.UUID, allowNull: false },
     bookingId: { type: DataTypes.UUID, allowNull: false },
     customerId: { type: DataTypes.UUID, allowNull: false },
-    method: { type: DataTypes.ENUM('cash', 'check', 'transfer', 'card'), allowNull: false },
+    method: { type: DataTypes.ENUM(...RECEIPT_METHODS), allowNull: false },
+    creditCents: { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 },
     amountCents: { type: DataTypes.BIGINT, allowNull: false },
     reference: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
     receivedAt: { type: DataTypes.DATE, allowNull: false },

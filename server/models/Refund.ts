@@ -34,7 +34,7 @@ export class SecurityDepositMove extends Model<InferAttributes<SecurityDepositMo
   declare id: CreationOptional<string>;
   declare organizationId: string;
   declare bookingId: string;
-  declare kind: 'held' | 'refunded' | 'kept';
+  declare kind: 'held' | 'refunded' | 'kept' | 'applied';
   declare amountCents: number;
   declare method: 'cash' | 'check' | 'transfer' | 'card' | null;
   declare reason: CreationOptional<string>;
@@ -48,7 +48,7 @@ SecurityDepositMove.init(
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
     organizationId: { type: DataTypes.UUID, allowNull: false },
     bookingId: { type: DataTypes.UUID, allowNull: false },
-    kind: { type: DataTypes.ENUM('held', 'refunded', 'kept'), allowNull: false },
+    kind: { type: DataTypes.ENUM('held', 'refunded', 'kept', 'applied'), allowNull: false },
     amountCents: { type: DataTypes.BIGINT, allowNull: false },
     method: { type: DataTypes.ENUM('cash', 'check', 'transfer', 'card'), allowNull: true },
     reason: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },

@@ -2,8 +2,12 @@ import type { InvoiceRow, PaymentRow } from '../../shared/schemas/invoices';
 import type { Booking, Customer, Invoice, Payment, PaymentAllocation, User } from '../models';
 import { can } from '../policies';
 
-export function presentInvoice(invoice: Invoice, actor: User, extra: { booking: Pick<Booking, 'reference'>; customer: Pick<Customer, 'id' | 'name' | 'email'>; currency: string; today: string }): InvoiceRow {
-  const balance = invoice.status === 'void' ? 0 : invoice.totalCents - invoice.paidCents;
+export function presentInvoice(
+  invoice: Invoice,
+  actor: User,
+  extra: { booking: Pick<Booking, 'reference'>; customer: Pick<Customer, 'id' | 'name' | 'email'>; currency: string; today: string; creditsInvoiceNumber?: string | null },
+): InvoiceRow {
+  const balance = invoice.status === 'void' || invoice.kind === 'credit_note' ? 0 : invoice.totalCents - invoice.paidCents - invoice.creditedCents;
   return {
     id: invoice.id,
     bookingId: invoice.bookingId,
@@ -20,15 +24,19 @@ export function presentInvoice(invoice: Invoice, actor: User, extra: { booking: 
     taxCents: invoice.taxCents,
     totalCents: invoice.totalCents,
     paidCents: invoice.paidCents,
+    creditedCents: invoice.creditedCents,
     balanceCents: balance,
     currency: extra.currency,
     documentId: invoice.documentId ?? null,
     voidReason: invoice.voidReason ?? null,
+    creditsInvoice: invoice.creditsInvoiceId ? { id: invoice.creditsInvoiceId, number: extra.creditsInvoiceNumber ?? null } : null,
+    reason: invoice.reason ?? null,
     createdAt: invoice.createdAt.toISOString(),
     can: {
       issue: can(actor, 'invoice', 'issue', invoice),
       void: can(actor, 'invoice', 'void', invoice),
       recordPayment: can(actor, 'invoice', 'recordPayment', invoice),
+      creditNote: can(actor, 'invoice', 'creditNote', invoice),
     },
   };
 }
@@ -39,6 +47,7 @@ export function presentPayment(payment: Payment, allocations: (PaymentAllocation
     bookingId: payment.bookingId,
     method: payment.method,
     amountCents: payment.amountCents,
+    creditCents: payment.creditCents,
     reference: payment.reference,
     receivedAt: payment.receivedAt.toISOString(),
     allocations: allocations.map((a) => ({ invoiceId: a.invoiceId, invoiceNumber: a.number, amountCents: a.amountCents })),

@@ -4,12 +4,14 @@ import { z } from 'zod';
 import { dateInZone } from '../../../shared/dates';
 import { IdParams } from '../../../shared/schemas/common';
 import {
-  AccountInput, CreateInvoiceRequest, InvoiceListQuery, type AccountRow, type CustomerStatement, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
+  AccountInput, ApplyCreditRequest, CreateInvoiceRequest, CreditNoteRequest, CreditRefundRequest, type CustomerCredit, InvoiceListQuery, type AccountRow, type CustomerStatement, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
 } from '../../../shared/schemas/invoices';
-import { createInvoice, issueInvoice, moveSecurityDeposit, recordPayment, refundPayment, voidInvoice } from '../../commands/invoices';
-import { forbidden } from '../../errors';
+import {
+  applyCredit, createAdditionalInvoice, createCreditNote, createInvoice, issueInvoice, moveSecurityDeposit, recordPayment, refundCredit, refundPayment, voidInvoice,
+} from '../../commands/invoices';
+import { badRequest, forbidden } from '../../errors';
 import { sequelize, withTransaction } from '../../db';
-import { bookingBalance, customerStatement, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
+import { bookingBalance, customerCreditCents, customerStatement, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
 import { ensureChart } from '../../ledger/chart';
 import { audit } from '../../commands/audit';
 import { conflict } from '../../errors';
@@ -24,8 +26,17 @@ export const invoicesRouter = Router();
 async function presentMany(invoices: Invoice[], actor: User, organization: Organization) {
   const bookings = new Map((await Booking.findAll({ where: { id: { [Op.in]: [...new Set(invoices.map((i) => i.bookingId))] } }, attributes: ['id', 'reference'] })).map((b) => [b.id, b]));
   const customers = new Map((await Customer.findAll({ where: { id: { [Op.in]: [...new Set(invoices.map((i) => i.customerId))] } }, attributes: ['id', 'name', 'email'] })).map((c) => [c.id, c]));
+  const creditedIds = [...new Set(invoices.map((i) => i.creditsInvoiceId).filter((id): id is string => !!id))];
+  const credited = new Map(
+    creditedIds.length ? (await Invoice.findAll({ where: { id: { [Op.in]: creditedIds } }, attributes: ['id', 'number'] })).map((i) => [i.id, i.number ?? null]) : [],
+  );
   const today = dateInZone(new Date(), organization.timeZone);
-  return invoices.map((i) => presentInvoice(i, actor, { booking: bookings.get(i.bookingId)!, customer: customers.get(i.customerId)!, currency: organization.currency, today }));
+  return invoices.map((i) =>
+    presentInvoice(i, actor, {
+      booking: bookings.get(i.bookingId)!, customer: customers.get(i.customerId)!, currency: organization.currency, today,
+      creditsInvoiceNumber: i.creditsInvoiceId ? credited.get(i.creditsInvoiceId) : null,
+    }),
+  );
 }
 
 invoicesRouter.get('/invoices', authenticate, validate(InvoiceListQuery, 'query'), async (req, res) => {
@@ -63,8 +74,10 @@ invoicesRouter.post('/bookings/:id/invoices', authenticate, validate(IdParams, '
   const { user, organization } = auth(req);
   const booking = sameOrganization(user, await Booking.findByPk(parsed<{ id: string }>(res, 'params').id), 'That booking');
   authorize(user, 'invoice', 'create');
-  const { kind } = parsed<{ kind: 'deposit' | 'balance' }>(res);
-  const invoice = await withTransaction((t) => createInvoice(user, booking.id, kind, req, t));
+  const input = parsed<z.output<typeof CreateInvoiceRequest>>(res);
+  const invoice = await withTransaction((t) =>
+    input.kind === 'additional' ? createAdditionalInvoice(user, booking.id, { lines: input.lines ?? [] }, req, t) : createInvoice(user, booking.id, input.kind, req, t),
+  );
   res.status(201).json((await presentMany([invoice], user, organization))[0]);
 });
 
@@ -85,6 +98,51 @@ invoicesRouter.post('/invoices/:id/void', authenticate, validate(IdParams, 'para
   res.json((await presentMany([invoice], user, organization))[0]);
 });
 
+invoicesRouter.post('/invoices/:id/credit-notes', authenticate, validate(IdParams, 'params'), validate(CreditNoteRequest), async (req, res) => {
+  const { user, organization } = auth(req);
+  const found = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  authorize(user, 'invoice', 'create');
+  const note = await withTransaction((t) => createCreditNote(user, found.id, parsed<{ amountCents: number; reason: string }>(res), req, t));
+  res.status(201).json((await presentMany([note], user, organization))[0]);
+});
+
+invoicesRouter.post('/invoices/:id/apply-credit', authenticate, validate(IdParams, 'params'), validate(ApplyCreditRequest), async (req, res) => {
+  const { user, organization } = auth(req);
+  const found = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  authorize(user, 'invoice', 'create');
+  const invoice = await withTransaction((t) => applyCredit(user, found.id, parsed<{ amountCents: number }>(res).amountCents, req, t));
+  res.json((await presentMany([invoice], user, organization))[0]);
+});
+
+invoicesRouter.get('/customers/:id/credit', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user, organization } = auth(req);
+  const customer = sameOrganization(user, await Customer.findByPk(parsed<{ id: string }>(res, 'params').id), 'That customer');
+  authorize(user, 'invoice', 'read');
+  const rows = await sequelize.query<{ id: string; occurred_at: Date; kind: string; memo: string; reference: string | null; in_cents: number; out_cents: number }>(
+    `SELECT e.id, e.occurred_at, e.kind, e.memo, b.reference, sum(l.credit_cents)::bigint AS in_cents, sum(l.debit_cents)::bigint AS out_cents
+       FROM journal_entries e JOIN journal_lines l ON l.entry_id = e.id JOIN accounts a ON a.id = l.account_id LEFT JOIN bookings b ON b.id = e.booking_id
+      WHERE e.customer_id = :id AND e.organization_id = :org AND a.system_key = 'customer_credit'
+      GROUP BY e.id, b.reference ORDER BY e.occurred_at DESC, e.created_at DESC, e.id`,
+    { replacements: { id: customer.id, org: user.organizationId }, type: QueryTypes.SELECT },
+  );
+  const body: CustomerCredit = {
+    creditCents: await customerCreditCents(customer.id),
+    currency: organization.currency,
+    moves: rows.map((r) => ({
+      entryId: r.id, occurredAt: new Date(r.occurred_at).toISOString(), kind: r.kind, memo: r.memo, bookingReference: r.reference, inCents: Number(r.in_cents), outCents: Number(r.out_cents),
+    })),
+  };
+  res.json(body);
+});
+
+invoicesRouter.post('/customers/:id/credit/refunds', authenticate, validate(IdParams, 'params'), validate(CreditRefundRequest), async (req, res) => {
+  const { user } = auth(req);
+  const customer = sameOrganization(user, await Customer.findByPk(parsed<{ id: string }>(res, 'params').id), 'That customer');
+  if (user.role !== 'owner') throw forbidden('Only the owner gives money back.');
+  const result = await withTransaction((t) => refundCredit(user, customer.id, parsed<z.output<typeof CreditRefundRequest>>(res), req, t));
+  res.status(201).json(result);
+});
+
 invoicesRouter.post('/payments', authenticate, validate(RecordPaymentRequest), async (req, res) => {
   const { user } = auth(req);
   authorize(user, 'invoice', 'create');
@@ -94,7 +152,10 @@ invoicesRouter.post('/payments', authenticate, validate(RecordPaymentRequest), a
   const payment = await withTransaction((t) =>
     recordPayment(
       user,
-      { method: input.method, reference: input.reference, receivedAt: input.receivedAt ? new Date(input.receivedAt) : new Date(), allocations, fieldFor: (i) => (split ? `allocations.${i}.amountCents` : 'amountCents') },
+      {
+        method: input.method, reference: input.reference, receivedAt: input.receivedAt ? new Date(input.receivedAt) : new Date(), allocations,
+        fieldFor: (i) => (split ? `allocations.${i}.amountCents` : 'amountCents'), keepExcessAsCredit: !split && input.keepExcessAsCredit,
+      },
       req,
       t,
     ),
@@ -135,11 +196,15 @@ invoicesRouter.get('/bookings/:id/ledger', authenticate, validate(IdParams, 'par
     if (!e || e.id !== r.id) entries.push((e = { id: r.id, occurredAt: new Date(r.occurred_at).toISOString(), kind: r.kind, memo: r.memo, lines: [] }));
     e.lines.push({ accountCode: r.code, accountName: r.name, debitCents: Number(r.debit_cents), creditCents: Number(r.credit_cents) });
   }
-  const invoiced = await Invoice.sum('totalCents', { where: { bookingId: booking.id, status: { [Op.notIn]: ['void', 'draft'] }, kind: { [Op.ne]: 'credit_note' } } });
+  const issued = { bookingId: booking.id, status: { [Op.notIn]: ['void', 'draft'] } };
+  const invoiced = await Invoice.sum('totalCents', { where: { ...issued, kind: { [Op.ne]: 'credit_note' } } });
+  const credited = await Invoice.sum('totalCents', { where: { ...issued, kind: 'credit_note' } });
   const body: BookingLedger = {
     entries,
     balanceCents: await bookingBalance(booking.id),
     invoicedCents: Number(invoiced ?? 0),
+    creditedCents: Number(credited ?? 0),
+    customerCreditCents: await customerCreditCents(booking.customerId),
     paidCents: await paidCents(booking.id),
     securityDepositHeldCents: await securityDepositHeldCents(booking.id),
   };
@@ -162,6 +227,10 @@ invoicesRouter.post('/bookings/:id/security-deposit', authenticate, validate(IdP
   authorize(user, 'invoice', 'create');
   // Giving money back is the owner's call, as with refunds.
   if (input.action === 'refund' && user.role !== 'owner') throw forbidden('Only the owner returns money.');
+  if (input.action === 'apply') {
+    const invoice = sameOrganization(user, await Invoice.findByPk(input.invoiceId!), 'That invoice');
+    if (invoice.bookingId !== booking.id) throw badRequest('Choose an invoice of this booking.', { invoiceId: 'Choose an invoice of this booking.' });
+  }
   const move = await withTransaction((t) => moveSecurityDeposit(user, booking.id, input, req, t));
   res.status(201).json({ id: move.id, kind: move.kind, amountCents: move.amountCents, heldCents: await securityDepositHeldCents(booking.id) });
 });

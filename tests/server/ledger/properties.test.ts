@@ -2,6 +2,8 @@
  * Property tests over random sequences of money events on three bookings of two customers:
  * every entry balances, the trial balance's columns are equal, and each booking's balance is
  * invoiced - credited - paid + refunded (a security deposit applied to an invoice counts as paid).
+ * Overpayments and credit notes beyond what is owed go to the customer's account credit, which
+ * later pays invoices or is paid back; it never goes below zero and always equals its events.
  * Each run gets a company of its own.
  */
 import fc from 'fast-check';
@@ -9,11 +11,11 @@ import { QueryTypes } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { addDays, zonedTimeToInstant } from '../../../shared/dates';
 import { sequelize, withTransaction } from '../../../server/db';
-import { accountBalances, bookingBalance, customerStatement, paidCents, securityDepositHeldCents, trialBalance } from '../../../server/ledger/balances';
+import { accountBalances, bookingBalance, customerCreditCents, customerStatement, paidCents, securityDepositHeldCents, trialBalance } from '../../../server/ledger/balances';
 import { ensureChart } from '../../../server/ledger/chart';
 import { recognizeDepositsDue } from '../../../server/ledger/jobs';
 import {
-  creditNote, eventTiming, invoiceIssued, paymentReceived, postEntry, refundIssued, reverseEntry,
+  creditNote, creditRefunded, eventTiming, invoiceIssued, paymentReceived, postEntry, refundIssued, reverseEntry,
   securityDepositApplied, securityDepositHeld, securityDepositRefunded, type EntryDraft, type InvoiceBreakdown, type PaymentMethod,
 } from '../../../server/ledger/post';
 import { buildCompany, buildCustomer } from '../../factories';
@@ -31,14 +33,17 @@ const breakdown = (scale: number) =>
     rentalCents: fc.integer({ min: 1, max: 60_000 * scale }),
     deliveryLaborCents: fc.integer({ min: 0, max: 20_000 * scale }),
     damageWaiverCents: fc.integer({ min: 0, max: 5_000 * scale }),
+    damageCents: fc.integer({ min: 0, max: 8_000 * scale }),
     taxCents: fc.integer({ min: 0, max: 6_000 * scale }),
   });
 
 const op = fc.oneof(
   fc.record({ type: fc.constant('invoice' as const), b, advance, breakdown: breakdown(1) }),
-  fc.record({ type: fc.constant('payment' as const), b, advance, amount: fc.integer({ min: 1, max: 80_000 }), method }),
+  fc.record({ type: fc.constant('payment' as const), b, advance, amount: fc.integer({ min: 1, max: 80_000 }), method, keep: fc.integer({ min: 0, max: 100 }) }),
   fc.record({ type: fc.constant('refund' as const), b, advance, pct, method }),
-  fc.record({ type: fc.constant('credit' as const), b, advance, breakdown: breakdown(0.25) }),
+  fc.record({ type: fc.constant('credit' as const), b, advance, breakdown: breakdown(0.25), keep: fc.integer({ min: 0, max: 100 }) }),
+  fc.record({ type: fc.constant('useCredit' as const), b, advance, pct }),
+  fc.record({ type: fc.constant('payCreditBack' as const), b, advance, pct, method }),
   fc.record({ type: fc.constant('sdHeld' as const), b, advance, amount: fc.integer({ min: 1, max: 50_000 }), method }),
   fc.record({ type: fc.constant('sdRefund' as const), b, advance, pct, method }),
   fc.record({ type: fc.constant('sdApply' as const), b, advance, pct, to: fc.constantFrom<'damage' | 'invoice'>('damage', 'invoice') }),
@@ -46,9 +51,13 @@ const op = fc.oneof(
   fc.record({ type: fc.constant('recognize' as const), b, advance }),
 );
 
-interface Tally { invoiced: number; credited: number; paid: number; refunded: number; sdHeld: number; preTax: number; tax: number; damage: number }
-const zero = (): Tally => ({ invoiced: 0, credited: 0, paid: 0, refunded: 0, sdHeld: 0, preTax: 0, tax: 0, damage: 0 });
+/** Per booking; `credit` is the customer's account credit that arose on (or was used on) this booking. */
+interface Tally { invoiced: number; credited: number; paid: number; refunded: number; sdHeld: number; preTax: number; tax: number; damage: number; credit: number }
+const zero = (): Tally => ({ invoiced: 0, credited: 0, paid: 0, refunded: 0, sdHeld: 0, preTax: 0, tax: 0, damage: 0, credit: 0 });
 const preTaxOf = (x: InvoiceBreakdown) => x.rentalCents + x.deliveryLaborCents + x.damageWaiverCents;
+const damageOf = (x: InvoiceBreakdown) => x.damageCents ?? 0;
+/** Bookings 0 and 1 are Alder's, booking 2 is Birch's. */
+const CUSTOMER_OF = [0, 0, 1];
 // Test-side sums of small integers: exact, and independent of the code under test.
 const share = (cents: number, p: number) => Math.max(1, Math.floor((cents * p) / 100));
 
@@ -66,6 +75,7 @@ describe('ledger properties', () => {
           await buildLedgerBooking(org.id, birch.id, EVENT_DATES[2], tz),
         ];
         const tallies = bookings.map(zero);
+        const creditOf = (i: number) => tallies.reduce((sum, t, k) => (CUSTOMER_OF[k] === CUSTOMER_OF[i] ? sum + t.credit : sum), 0);
         // Reversible entries with their effect on the tallies.
         const reversible: { id: string; b: number; effect: Partial<Tally>; reversed: boolean }[] = [];
         let posted = 0;
@@ -86,18 +96,38 @@ describe('ledger properties', () => {
           const timing = eventTiming(bookings[i].eventStart, zonedTimeToInstant(day, '10:00', tz), tz);
           switch (o.type) {
             case 'invoice': {
-              const total = preTaxOf(o.breakdown) + o.breakdown.taxCents;
-              await post(i, invoiceIssued(o.breakdown, timing), { invoiced: total, preTax: preTaxOf(o.breakdown), tax: o.breakdown.taxCents }, true);
+              const total = preTaxOf(o.breakdown) + damageOf(o.breakdown) + o.breakdown.taxCents;
+              await post(i, invoiceIssued(o.breakdown, timing), { invoiced: total, preTax: preTaxOf(o.breakdown), damage: damageOf(o.breakdown), tax: o.breakdown.taxCents }, true);
               break;
             }
             case 'credit': {
-              const total = preTaxOf(o.breakdown) + o.breakdown.taxCents;
-              await post(i, creditNote(o.breakdown, timing), { credited: total, preTax: -preTaxOf(o.breakdown), tax: -o.breakdown.taxCents }, true);
+              // A credit note's damage part goes to refunds and allowances, like the rest after the event.
+              const preTax = preTaxOf(o.breakdown) + damageOf(o.breakdown);
+              const total = preTax + o.breakdown.taxCents;
+              const kept = Math.floor((total * o.keep) / 100);
+              await post(i, creditNote(o.breakdown, timing, kept), { credited: total - kept, credit: kept, preTax: -preTax, tax: -o.breakdown.taxCents }, true);
               break;
             }
-            case 'payment':
-              await post(i, paymentReceived(o.amount, o.method), { paid: o.amount }, true);
+            case 'payment': {
+              const kept = Math.floor((o.amount * o.keep) / 100);
+              await post(i, paymentReceived(o.amount, o.method, kept), { paid: o.amount - kept, credit: kept }, true);
               break;
+            }
+            case 'useCredit': {
+              const available = creditOf(i);
+              expect(await customerCreditCents(bookings[i].customerId)).toBe(available);
+              if (available <= 0) break; // the caller refuses: no credit to use
+              const amount = share(available, o.pct);
+              await post(i, paymentReceived(amount, 'credit'), { paid: amount, credit: -amount }, true);
+              break;
+            }
+            case 'payCreditBack': {
+              const available = creditOf(i);
+              if (available <= 0) break;
+              const amount = share(available, o.pct);
+              await post(i, creditRefunded(amount, o.method as 'cash'), { credit: -amount }, false);
+              break;
+            }
             case 'refund': {
               const paid = await paidCents(bookings[i].id);
               expect(paid).toBe(tally.paid - tally.refunded);
@@ -123,8 +153,10 @@ describe('ledger properties', () => {
               if (!open.length) break;
               const r = open[o.pick % open.length];
               const t2 = tallies[r.b];
-              // A payment reversal that would leave more refunded than paid is refused by the caller.
+              // A payment reversal that would leave more refunded than paid is refused by the caller,
+              // and so is one that would take back account credit already used.
               if (r.effect.paid && t2.paid - r.effect.paid < t2.refunded) break;
+              if ((r.effect.credit ?? 0) > 0 && creditOf(r.b) - r.effect.credit! < 0) break;
               await withTransaction((t) => reverseEntry(r.id, 'Entered in error', owner.id, t));
               for (const [k, v] of Object.entries(r.effect) as [keyof Tally, number][]) t2[k] -= v;
               r.reversed = true;
@@ -164,6 +196,11 @@ describe('ledger properties', () => {
         const owed = (k: number) => tallies[k].invoiced - tallies[k].credited - tallies[k].paid + tallies[k].refunded;
         expect((await customerStatement(alder.id)).balanceCents).toBe(owed(0) + owed(1));
         expect((await customerStatement(birch.id)).balanceCents).toBe(owed(2));
+        // Account credit: per customer, never negative, and the liability account holds it all.
+        expect(await customerCreditCents(alder.id)).toBe(creditOf(0));
+        expect(await customerCreditCents(birch.id)).toBe(creditOf(2));
+        expect(creditOf(0)).toBeGreaterThanOrEqual(0);
+        expect(creditOf(2)).toBeGreaterThanOrEqual(0);
 
         // After every event date: no deposit is still a liability; net revenue and tax follow the documents.
         const bal = Object.fromEntries((await accountBalances(org.id)).map((a) => [a.systemKey, a.balanceCents]));
@@ -173,6 +210,7 @@ describe('ledger properties', () => {
         expect(bal.sales_tax_payable).toBe(sumOf('tax'));
         expect(bal.security_deposits_held).toBe(sumOf('sdHeld'));
         expect(bal.damage_recovery).toBe(sumOf('damage'));
+        expect(bal.customer_credit ?? 0).toBe(sumOf('credit'));
       }),
       { numRuns: 50, seed: 20_261_201 },
     );
