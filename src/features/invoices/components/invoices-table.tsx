@@ -57,9 +57,10 @@ export function InvoicesTable({ invoices, timeZone, linkBookings, caption = 'Inv
               {formatInvoiceDate(i.dueDate, timeZone) || '—'}
               {i.overdue ? <span className="block text-xs">Overdue</span> : null}
             </Td>
-            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.totalCents, i.currency)}</Td>
-            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.paidCents, i.currency)}</Td>
-            <Td className="text-right font-semibold whitespace-nowrap tabular-nums">{formatMoney(i.balanceCents, i.currency)}</Td>
+            {/* A credit note lowers what is owed: its total reads as minus; nothing is paid or owed on it. */}
+            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.kind === 'credit_note' ? -i.totalCents : i.totalCents, i.currency)}</Td>
+            <Td className="text-right whitespace-nowrap tabular-nums">{i.kind === 'credit_note' ? '—' : formatMoney(i.paidCents, i.currency)}</Td>
+            <Td className="text-right font-semibold whitespace-nowrap tabular-nums">{i.kind === 'credit_note' ? '—' : formatMoney(i.balanceCents, i.currency)}</Td>
             <Td>
               <InvoiceStatusBadges invoice={i} />
             </Td>

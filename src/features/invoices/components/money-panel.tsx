@@ -1,7 +1,7 @@
 import { useId, useState } from 'react';
 import { Link } from 'react-router';
 import { formatMoney } from '@shared/money';
-import type { InvoiceRow, PaymentRow } from '@shared/schemas/invoices';
+import type { BookingLedger, InvoiceRow, PaymentRow } from '@shared/schemas/invoices';
 import { Alert, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/spinner';
@@ -36,6 +36,13 @@ interface MoneyPanelProps {
   onChanged?: () => void;
 }
 
+/**
+ * The part of the booking's credit notes that did not come off a balance (the invoice was paid
+ * already) and became account credit: the gap between the booking's balance and invoiced less
+ * credited less paid.
+ */
+const creditedToAccount = (l: Pick<BookingLedger, 'balanceCents' | 'invoicedCents' | 'creditedCents' | 'paidCents'>) => l.balanceCents - (l.invoicedCents - l.creditedCents - l.paidCents);
+
 /** Money that may still come in on an invoice, as the server allows it. */
 const payable = (i: InvoiceRow) => i.kind !== 'credit_note' && i.can.recordPayment && i.balanceCents > 0;
 
@@ -63,8 +70,9 @@ function BookingInvoices({ invoices, timeZone, reference }: { invoices: readonly
               <InvoiceStatusBadges invoice={i} />
             </Td>
             <Td className={cn('whitespace-nowrap', i.overdue && 'font-semibold text-rust-700')}>{formatInvoiceDate(i.dueDate, timeZone) || '—'}</Td>
-            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.totalCents, i.currency)}</Td>
-            <Td className="text-right font-semibold whitespace-nowrap tabular-nums">{formatMoney(i.balanceCents, i.currency)}</Td>
+            {/* A credit note lowers what is owed: its total reads as minus, and it has no balance of its own. */}
+            <Td className="text-right whitespace-nowrap tabular-nums">{formatMoney(i.kind === 'credit_note' ? -i.totalCents : i.totalCents, i.currency)}</Td>
+            <Td className="text-right font-semibold whitespace-nowrap tabular-nums">{i.kind === 'credit_note' ? '—' : formatMoney(i.balanceCents, i.currency)}</Td>
           </Tr>
         ))}
       </TBody>
@@ -271,7 +279,13 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
                 </div>
               ))}
             </dl>
-            <p className="mt-2 text-sm text-canvas-700">The balance is what was invoiced, less credit notes, less what was paid.</p>
+            <p className="mt-2 text-sm text-canvas-700">
+              The balance is what was invoiced, less credit notes, less what was paid
+              {creditedToAccount(ledger.data) > 0
+                ? `; ${money(creditedToAccount(ledger.data))} of the credit notes came after the invoices were paid, so it went to the customer’s account credit instead`
+                : ''}
+              .
+            </p>
             {ledger.data.customerCreditCents !== 0 ? (
               <Alert tone="info" className="mt-3" title="The customer has account credit.">
                 <span data-testid="booking-customer-credit">{money(ledger.data.customerCreditCents)}</span>, usable on any of their invoices: open an invoice with a balance and choose Pay

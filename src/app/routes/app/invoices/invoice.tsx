@@ -127,7 +127,7 @@ export default function InvoiceRoute() {
   }
   const i = invoice.data;
   const money = (cents: number) => formatMoney(cents, i.currency);
-  const title = i.number ? `Invoice ${i.number}` : invoiceName(i);
+  const title = i.number ? `${i.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${i.number}` : invoiceName(i);
   const canPay = mayPay;
   const creditCents = (mayPay && credit.data?.creditCents) || 0;
   const isCreditNote = i.kind === 'credit_note';
@@ -321,8 +321,13 @@ export default function InvoiceRoute() {
           setDialog(null);
           // The same split the dialog explained, from the balance before the credit note.
           const { offBalance, toCredit } = splitCredit(note.totalCents, i.balanceCents);
+          const issued = `Credit note ${note.number ?? ''} for ${money(note.totalCents)} is issued.`;
           setNotice(
-            `Credit note ${note.number ?? ''} for ${money(note.totalCents)} is issued. ${money(offBalance)} came off the balance${toCredit > 0 ? `; ${money(toCredit)} became ${i.customer.name}’s account credit` : ''}.`,
+            toCredit === 0
+              ? `${issued} ${money(offBalance)} came off the balance.`
+              : offBalance === 0
+                ? `${issued} The invoice had nothing left to pay, so all of it became ${i.customer.name}’s account credit.`
+                : `${issued} ${money(offBalance)} came off the balance; ${money(toCredit)} became ${i.customer.name}’s account credit.`,
           );
         }}
       />
