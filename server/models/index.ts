@@ -2,10 +2,13 @@ import { Account } from './Account';
 import { AuditLog } from './AuditLog';
 import { AuthToken } from './AuthToken';
 import { Booking } from './Booking';
+import { BookingCrew } from './BookingCrew';
 import { BookingLine } from './BookingLine';
+import { CalendarFeed } from './CalendarFeed';
 import { CompanyClause } from './CompanyClause';
 import { Customer } from './Customer';
 import { Document } from './Document';
+import { FieldPhoto } from './FieldPhoto';
 import { DocumentSend } from './DocumentSend';
 import { DocumentTemplate } from './DocumentTemplate';
 import { Invoice } from './Invoice';
@@ -15,8 +18,10 @@ import { JournalLine } from './JournalLine';
 import { Organization } from './Organization';
 import { Payment, PaymentAllocation } from './Payment';
 import { Refund, SecurityDepositMove } from './Refund';
+import { ReturnCheck, ReturnCheckLine } from './ReturnCheck';
 import { Session } from './Session';
 import { Shortfall } from './Shortfall';
+import { SiteCheck } from './SiteCheck';
 import { SigningEvent } from './SigningEvent';
 import { SigningRequest } from './SigningRequest';
 import { StoredFile } from './StoredFile';
@@ -37,8 +42,12 @@ SigningRequest.hasMany(SigningEvent, { foreignKey: 'signingRequestId', as: 'even
 SigningRequest.belongsTo(Document, { foreignKey: 'documentId', as: 'document' });
 JournalEntry.hasMany(JournalLine, { foreignKey: 'entryId', as: 'lines' });
 JournalLine.belongsTo(Account, { foreignKey: 'accountId', as: 'account' });
+// Field operations.
+BookingCrew.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+ReturnCheck.hasMany(ReturnCheckLine, { foreignKey: 'returnCheckId', as: 'lines' });
 
 export {
+  BookingCrew, CalendarFeed, FieldPhoto, ReturnCheck, ReturnCheckLine, SiteCheck,
   Invoice, Payment, PaymentAllocation, Refund, SecurityDepositMove,
   Account, AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, JournalEntry, JournalLine,
   Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,

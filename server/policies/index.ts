@@ -5,12 +5,13 @@ import type { User } from '../models';
 import { bookingPolicy } from './booking';
 import { customerPolicy } from './customer';
 import { documentPolicy } from './document';
+import { fieldPolicy } from './field';
 import { invoicePolicy } from './invoice';
 import { itemPolicy } from './item';
 import { organizationPolicy } from './organization';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */
@@ -44,6 +45,7 @@ export function sameOrganization<T extends { organizationId: string } | null>(ac
 export function areasFor(user: User): Area[] {
   const areas: Area[] = ['dashboard', 'bookings', 'customers', 'catalog'];
   if (invoicePolicy.read(user)) areas.push('invoices');
+  if (fieldPolicy.read(user)) areas.push('field');
   if (userPolicy.list(user)) areas.push('users');
   if (user.role === 'owner') areas.push('settings');
   if (env.FAKES === 'on') areas.push('devInbox');

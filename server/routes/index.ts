@@ -4,6 +4,7 @@ import { authRouter } from './auth';
 import { bookingsRouter } from './bookings';
 import { customersRouter } from './customers';
 import { documentsRouter } from './documents';
+import { fieldRouter } from './field';
 import { invoicesRouter } from './invoices';
 import { signingRouter } from './signing';
 import { itemsRouter } from './items';
@@ -25,6 +26,7 @@ export function apiRouter() {
   api.use('/items', itemsRouter);
   api.use('/customers', customersRouter);
   api.use('/bookings', bookingsRouter);
+  api.use('/field', fieldRouter);
   if (env.FAKES === 'on') api.use('/dev', devRouter);
   return api;
 }

@@ -77,6 +77,12 @@ export const CompanyRules = z.object({
   signedCopyDays: z.number().int().min(1).max(3650).default(90),
   /** Take tents down or evacuate at this sustained wind speed unless the manufacturer says lower (common practice, no published source). */
   windLimitMph: z.number().int().min(10).max(150).default(40),
+  /**
+   * Nobody stays inside a tent at or above this sustained wind speed. Default 30 mph: a
+   * trade-association magazine's guidance that above 30–38 mph it is too hazardous to stay inside
+   * a tent (the issue's source); the manufacturer's rating comes first when lower.
+   */
+  occupiedWindLimitMph: z.number().int().min(10).max(150).default(30),
 });
 export type CompanyRules = z.infer<typeof CompanyRules>;
 export const DEFAULT_RULES: CompanyRules = CompanyRules.parse({});

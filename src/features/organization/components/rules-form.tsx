@@ -33,6 +33,7 @@ function toValues(r: CompanyRules): Values {
     permitOpenSidedAreaSqFt: String(r.permitOpenSidedAreaSqFt),
     seatsPerBanquetTable: String(r.seatsPerBanquetTable),
     windLimitMph: String(r.windLimitMph),
+    occupiedWindLimitMph: String(r.occupiedWindLimitMph),
     signingLinkDays: String(r.signingLinkDays),
     signedCopyDays: String(r.signedCopyDays),
     invoicePrefix: r.invoicePrefix,
@@ -57,7 +58,7 @@ function toInput(v: Values) {
   c.input.deliveryTaxable = v.deliveryTaxable === 'true';
   // Typed in lower case it still reads as the prefix the schema takes.
   c.input.invoicePrefix = v.invoicePrefix.trim().toUpperCase();
-  for (const key of ['turnaroundHours', 'permitAreaSqFt', 'permitOpenSidedAreaSqFt', 'seatsPerBanquetTable', 'windLimitMph', 'signingLinkDays', 'signedCopyDays']) {
+  for (const key of ['turnaroundHours', 'permitAreaSqFt', 'permitOpenSidedAreaSqFt', 'seatsPerBanquetTable', 'windLimitMph', 'occupiedWindLimitMph', 'signingLinkDays', 'signedCopyDays']) {
     c.put(key, parseWhole(v[key], 0));
   }
   const sq = collector();
@@ -198,6 +199,13 @@ export function RulesForm({ rules }: { rules: RulesResponse }) {
             inputMode="numeric"
             hint="Take tents down or clear them at this sustained wind. When a tent maker rates a tent lower, follow the manufacturer’s rating."
             {...form.field('windLimitMph')}
+          />
+          <TextField
+            className="max-w-xs"
+            label="Guests out of the tent at (mph)"
+            inputMode="numeric"
+            hint="Nobody stays inside a tent at this sustained wind. Default 30 mph, after trade-association guidance that above 30–38 mph it is too hazardous to stay inside; a lower manufacturer’s rating comes first."
+            {...form.field('occupiedWindLimitMph')}
           />
         </fieldset>
         <fieldset className="space-y-4">

@@ -1,0 +1,79 @@
+import { describe, expect, it } from 'vitest';
+import { createApp } from '../../../server/app';
+import { FieldPhoto, StoredFile } from '../../../server/models';
+import { PHOTO_MAX_BYTES } from '../../../shared/schemas/field';
+import type { ApiClient } from '../../support';
+import { ApiClient as Client } from '../../support';
+import { as as signIn, booking, fieldCompany } from './fieldCompany';
+
+const app = createApp();
+const as = (user: Parameters<typeof signIn>[1]) => signIn(app, user);
+
+// A 1x1 PNG (PNG signature, IHDR, IDAT, IEND; PNG specification, ISO/IEC 15948).
+const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
+// The start of an ELF executable: magic 0x7F "ELF", 64-bit, little-endian (ELF specification, e_ident).
+const ELF = Buffer.concat([Buffer.from('7f454c4602010100000000000000000002003e0001000000', 'hex'), Buffer.alloc(200)]);
+const HTML = Buffer.from('<!DOCTYPE html><html><body><script>document.title = "owned"</script><img src=x onerror=alert(1)></body></html>');
+
+const upload = (c: ApiClient, bookingId: string, bytes: Buffer, filename: string, fields: Record<string, string> = { stage: 'delivered' }, contentType = 'image/jpeg') => {
+  let r = c.agent.post(`/api/field/bookings/${bookingId}/photos`).set('X-CSRF-Token', c.csrf).set('X-Forwarded-For', c.ip);
+  for (const [k, v] of Object.entries(fields)) r = r.field(k, v);
+  return r.attach('file', bytes, { filename, contentType });
+};
+
+describe('field photos', () => {
+  it('401 -> 403 -> refuses a renamed executable, an HTML file, an oversized image and an empty file; keeps nothing of them', async () => {
+    const c = await fieldCompany();
+    const office = await as(c.office);
+    const a = await booking(office, c.customer.id, '2027-06-12', [{ itemId: c.wall.id, quantity: 4, description: 'Sidewall 7x20' }]);
+    const anon = await new Client(app).init();
+    expect((await upload(anon, a.id, PNG, 'site.png')).status).toBe(401);
+    expect((await upload(await as(c.bookkeeper), a.id, PNG, 'site.png')).status).toBe(403);
+
+    const crew = await as(c.crew);
+    // The type comes from the bytes: a program named like a photo, and a page named like one, are refused.
+    const exe = await upload(crew, a.id, ELF, 'tent.jpg');
+    expect(exe.status).toBe(415);
+    expect(exe.body.error.fields.file).toBeDefined();
+    expect((await upload(crew, a.id, HTML, 'tent.png', { stage: 'site' }, 'image/png')).status).toBe(415);
+    expect((await upload(crew, a.id, HTML, 'page.html', { stage: 'site' }, 'text/html')).status).toBe(415);
+    const big = await upload(crew, a.id, Buffer.concat([PNG, Buffer.alloc(PHOTO_MAX_BYTES)]), 'big.png');
+    expect(big.status).toBe(413);
+    expect(big.body.error.code).toBe('too_large');
+    const empty = await upload(crew, a.id, Buffer.alloc(0), 'empty.jpg');
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.code).toBe('empty_file');
+    // A photo needs to say what it shows.
+    expect((await upload(crew, a.id, PNG, 'site.png', { stage: 'selfie' })).status).toBe(400);
+    expect((await upload(crew, a.id, PNG, 'site.png', { stage: 'damage', lineKey: 'not-a-line' })).status).toBe(400);
+    expect(await StoredFile.count({ where: { organizationId: c.organization.id } })).toBe(0);
+    expect(await FieldPhoto.count({ where: { bookingId: a.id } })).toBe(0);
+  });
+
+  it('stores a real photo with the booking and serves it as an image that is never sniffed or run', async () => {
+    const c = await fieldCompany();
+    const other = await fieldCompany();
+    const office = await as(c.office);
+    const a = await booking(office, c.customer.id, '2027-06-12', [{ itemId: c.wall.id, quantity: 4, description: 'Sidewall 7x20' }]);
+    const crew = await as(c.crew);
+    // Named .jpg and sent as JPEG, but it is a PNG: it is kept, served and named as what it is.
+    const ok = await upload(crew, a.id, PNG, 'wall <torn>.jpg', { stage: 'damage', lineKey: c.wall.id, caption: 'Torn seam' });
+    expect(ok.status).toBe(201);
+    const photo = ok.body.photos[0];
+    expect(photo).toMatchObject({ stage: 'damage', lineKey: c.wall.id, caption: 'Torn seam', contentType: 'image/png', size: PNG.length, uploadedBy: c.crew.name });
+
+    const got = await crew.agent.get(photo.url).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (x: Buffer) => chunks.push(x));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(got.status).toBe(200);
+    expect(got.headers['content-type']).toBe('image/png');
+    expect(got.headers['x-content-type-options']).toBe('nosniff');
+    expect(got.headers['content-security-policy']).toMatch(/default-src 'none'.*sandbox/);
+    expect(got.headers['content-disposition']).toBe('inline; filename="wall _torn_.png"');
+    expect(Buffer.compare(got.body as Buffer, PNG)).toBe(0);
+    // Another company's people do not see it.
+    expect((await (await as(other.crew)).get(photo.url)).status).toBe(404);
+  });
+});
