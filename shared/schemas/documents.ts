@@ -104,21 +104,5 @@ export interface TemplateProblem {
 
 export const PAYMENT_METHODS = ['cash', 'check', 'transfer', 'card'] as const;
 
-/** POST /api/bookings/:id/receipt: a receipt for money received. */
-export const ReceiptRequest = z.object({
-  amountCents: z.number({ error: 'Enter the amount received.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
-  method: z.enum(PAYMENT_METHODS, { error: 'Choose cash, check, transfer or card.' }),
-  receivedAt: z.iso.datetime({ offset: true, error: 'Enter when it was received.' }),
-  reference: z.string().trim().max(80, 'Use at most 80 characters.').default(''),
-});
-export type ReceiptRequest = z.input<typeof ReceiptRequest>;
-
-/** POST /api/bookings/:id/credit-note */
-export const CreditNoteRequest = z.object({
-  amountCents: z.number({ error: 'Enter the amount credited.' }).int('Amounts are whole cents.').min(1, 'The amount must be above zero.').max(100_000_000_00),
-  reason: z.string({ error: 'Say why.' }).trim().min(3, 'Say why the customer is credited.').max(500),
-});
-export type CreditNoteRequest = z.input<typeof CreditNoteRequest>;
-
 export const LOGO_TYPES = ['image/png', 'image/jpeg'] as const;
 export const LOGO_MAX_BYTES = 1024 * 1024;

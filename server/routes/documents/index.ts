@@ -4,18 +4,17 @@ import { Op } from 'sequelize';
 import { z } from 'zod';
 import { IdParams } from '../../../shared/schemas/common';
 import {
-  ClauseInput, CreditNoteRequest, ReceiptRequest, SendDocumentRequest, TEMPLATE_NAMES, TemplatePreviewRequest, TemplateSource, type DocumentKind, type TemplateName,
+  ClauseInput, SendDocumentRequest, TEMPLATE_NAMES, TemplatePreviewRequest, TemplateSource, type DocumentKind, type TemplateName,
 } from '../../../shared/schemas/documents';
 import { audit } from '../../commands/audit';
 import { issueDocument, sendDocument } from '../../commands/documents';
+import { createInvoice, issueInvoice } from '../../commands/invoices';
 import { withTransaction } from '../../db';
 import { bookingDocumentValues, markdownToHtml, renderDocumentMarkdown, TemplateError, type TemplateProblem } from '../../documents';
-import { HttpError, badRequest, conflict, notFound } from '../../errors';
-import { formatMoney } from '../../../shared/money';
-import { quoteBooking } from '../../services/pricing';
+import { HttpError, conflict, notFound } from '../../errors';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
-import { Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Organization, User } from '../../models';
+import { Booking, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, User } from '../../models';
 import { authorize, can, sameOrganization } from '../../policies';
 import { presentBooking } from '../../presenters/booking';
 import { presentClause, presentDocument, presentTemplate } from '../../presenters/document';
@@ -60,40 +59,32 @@ const issue = (kind: DocumentKind) => async (req: import('express').Request, res
 };
 
 documentsRouter.post('/bookings/:id/agreement', authenticate, validate(IdParams, 'params'), issue('rental_agreement'));
-documentsRouter.post('/bookings/:id/invoice', authenticate, validate(IdParams, 'params'), issue('invoice'));
-
-/** The most a receipt or credit note may say: what the booking comes to, security deposit included. */
-async function bookingDue(organization: Organization, bookingId: string) {
-  const b = (await Booking.findByPk(bookingId, { include: [{ model: Customer, as: 'customer' }, { model: BookingLine, as: 'lines' }] })) as Booking & { customer: Customer; lines: BookingLine[] };
-  return quoteBooking(b, b.lines, b.customer, organization).dueCents;
-}
-
-documentsRouter.post('/bookings/:id/receipt', authenticate, validate(IdParams, 'params'), validate(ReceiptRequest), async (req, res) => {
-  const { user, organization } = auth(req);
+/**
+ * One invoice series: the booking's invoice is an invoice record (#6) for everything not yet
+ * invoiced, issued at once with its ledger entry and PDF; the answer is that PDF's document.
+ */
+documentsRouter.post('/bookings/:id/invoice', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user } = auth(req);
   const booking = await loadBooking(user, parsed<{ id: string }>(res, 'params').id);
-  authorize(user, 'document', 'issue');
-  const input = parsed<z.output<typeof ReceiptRequest>>(res);
-  const due = await bookingDue(organization, booking.id);
-  if (input.amountCents > due) {
-    throw badRequest(`A receipt cannot be for more than the booking comes to (${formatMoney(due, organization.currency)}).`, { amountCents: 'More than the booking comes to.' });
-  }
-  const doc = await withTransaction((t) =>
-    issueDocument(user, booking.id, 'receipt', req, t, { payment: { amountCents: input.amountCents, method: input.method, receivedAt: new Date(input.receivedAt), reference: input.reference } }),
-  );
+  authorize(user, 'invoice', 'create');
+  const doc = await withTransaction(async (t) => {
+    const draft = await createInvoice(user, booking.id, 'balance', req, t);
+    const issued = await issueInvoice(user, draft.id, req, t);
+    return (await Document.findByPk(issued.documentId!, { transaction: t }))!;
+  });
   res.status(201).json((await presentMany([doc], user))[0]);
 });
 
-documentsRouter.post('/bookings/:id/credit-note', authenticate, validate(IdParams, 'params'), validate(CreditNoteRequest), async (req, res) => {
-  const { user, organization } = auth(req);
-  const booking = await loadBooking(user, parsed<{ id: string }>(res, 'params').id);
-  authorize(user, 'document', 'issue');
-  const input = parsed<z.output<typeof CreditNoteRequest>>(res);
-  const due = await bookingDue(organization, booking.id);
-  if (input.amountCents > due) {
-    throw badRequest(`A credit note cannot be for more than the booking comes to (${formatMoney(due, organization.currency)}).`, { amountCents: 'More than the booking comes to.' });
-  }
-  const doc = await withTransaction((t) => issueDocument(user, booking.id, 'credit_note', req, t, { credit: input }));
-  res.status(201).json((await presentMany([doc], user))[0]);
+/**
+ * Receipts and credit notes are no longer written free-hand: a receipt comes from a payment
+ * recorded on an invoice, a credit note from a credit against one, so the ledger explains every
+ * figure a customer is sent.
+ */
+documentsRouter.post('/bookings/:id/receipt', authenticate, () => {
+  throw new HttpError(410, 'moved', 'Receipts come from payments: record the payment on an invoice (POST /api/payments) and its receipt is made and e-mailed.');
+});
+documentsRouter.post('/bookings/:id/credit-note', authenticate, () => {
+  throw new HttpError(410, 'moved', 'Credit notes are issued against an invoice: POST /api/invoices/:id/credit-notes.');
 });
 
 documentsRouter.get('/bookings/:id/documents', authenticate, validate(IdParams, 'params'), async (req, res) => {

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../../server/app';
-import { Document, DocumentSend, StoredFile, type User } from '../../../server/models';
+import { Document, DocumentSend, Invoice, StoredFile, type User } from '../../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../../factories';
 import { ApiClient, uniqueEmail, waitForMail } from '../../support';
 
@@ -50,8 +50,12 @@ describe('issuing documents', () => {
     const again = await pdfBytes(o, first.body.id);
     expect(createHash('sha256').update(again.body as Buffer).digest('hex')).toBe(first.body.sha256);
 
+    // One invoice series: the booking's invoice is an invoice record, numbered per company and year.
     const invoice = await o.post(`/api/bookings/${booking.id}/invoice`);
-    expect(invoice.body.number).toMatch(/^INV-\d{5}$/);
+    expect(invoice.status).toBe(201);
+    expect(invoice.body.number).toMatch(/^INV-\d{4}-0001$/);
+    expect(await Invoice.count({ where: { bookingId: booking.id, kind: 'balance', status: 'open', documentId: invoice.body.id } })).toBe(1);
+    expect((await o.post(`/api/bookings/${booking.id}/invoice`)).body.error.code).toBe('nothing_to_invoice');
     const list = await o.get(`/api/bookings/${booking.id}/documents`);
     expect(list.body.data.map((d: { version: number; kind: string }) => `${d.kind}:${d.version}`)).toEqual(['invoice:1', 'rental_agreement:2', 'rental_agreement:1']);
     expect((await (await as(crew)).get(`/api/documents/${first.body.id}`)).status).toBe(404);
@@ -80,28 +84,15 @@ describe('receipts, credit notes and the logo', () => {
   // A 1x1 PNG (PNG signature, IHDR, IDAT, IEND).
   const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
 
-  it('a receipt says what was received and each one is its own document; never more than the booking comes to', async () => {
+  it('receipts and credit notes are no longer written free-hand: they come from payments and credits on invoices', async () => {
     const { office, owner, organization } = await buildCompany();
     const { client: o, booking } = await bookingFor(office, organization.id);
-    const bad = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 0, method: 'barter', receivedAt: 'yesterday' });
-    expect(bad.status).toBe(400);
-    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['amountCents', 'method', 'receivedAt']);
-    // 350.00 at 7.25% = 375.38 (350 x 1.0725 = 375.375, half up): more than that is refused.
-    expect(booking.totals.totalCents).toBe(37_538);
-    const tooMuch = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 37_539 + booking.totals.securityDepositCents, method: 'cash', receivedAt: '2027-05-01T15:00:00Z' });
-    expect(tooMuch.status).toBe(400);
-    const first = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 11_261, method: 'check', receivedAt: '2027-05-01T15:00:00Z', reference: 'Check 1042' });
-    expect(first.status).toBe(201);
-    expect(first.body).toMatchObject({ kind: 'receipt', number: `RCT-${booking.reference}-1`, status: 'issued' });
-    const second = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 26_277, method: 'cash', receivedAt: '2027-06-10T15:00:00Z' });
-    expect(second.body.number).toBe(`RCT-${booking.reference}-2`);
-    expect((await o.get(`/api/documents/${first.body.id}`)).body.status).toBe('issued');
-    const stored = await Document.findByPk(first.body.id);
-    expect(stored!.markdown).toContain('$112.61');
-    expect(stored!.markdown).toContain('Check 1042');
+    const receipt = await o.post(`/api/bookings/${booking.id}/receipt`, { amountCents: 11_261, method: 'check', receivedAt: '2027-05-01T15:00:00Z' });
+    expect(receipt.status).toBe(410);
+    expect(receipt.body.error.message).toMatch(/\/api\/payments/);
     const credit = await (await as(owner)).post(`/api/bookings/${booking.id}/credit-note`, { amountCents: 5_000, reason: 'Two chairs arrived broken' });
-    expect(credit.status).toBe(201);
-    expect((await Document.findByPk(credit.body.id))!.markdown).toContain('Two chairs arrived broken');
+    expect(credit.status).toBe(410);
+    expect(await Document.count({ where: { bookingId: booking.id } })).toBe(0);
   });
 
   it('the owner uploads a PNG or JPEG logo that documents print; other files are refused', async () => {

@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { DOCUMENT_KIND_LABELS, type DocumentKind, type DocumentRow } from '@shared/schemas/documents';
 import { Alert, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -6,22 +6,14 @@ import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Spinner } from '@/components/ui/spinner';
 import { errorMessage } from '@/lib/api';
 import { useCreateAgreement } from '../api/create-agreement';
-import { useCreateInvoice } from '../api/create-invoice';
 import { useBookingDocuments } from '../api/get-booking-documents';
-import { CreditNoteForm } from './credit-note-form';
 import { DocumentItem } from './document-item';
 import { documentName } from './document-labels';
-import { ReceiptForm } from './receipt-form';
 
-type IssuableKind = Extract<DocumentKind, 'rental_agreement' | 'invoice'>;
+type IssuableKind = Extract<DocumentKind, 'rental_agreement'>;
 /** Documents that record money and so start with a form. */
-type RecordedKind = Extract<DocumentKind, 'receipt' | 'credit_note'>;
-
-const RECORD_LABELS: Record<RecordedKind, string> = { receipt: 'Record a receipt', credit_note: 'Issue a credit note' };
-
 const CREATE_LABELS: Record<IssuableKind, { first: string; next: string; progress: string }> = {
   rental_agreement: { first: 'Create rental agreement', next: 'New version of the rental agreement', progress: 'Making the rental agreement…' },
-  invoice: { first: 'Create invoice', next: 'New version of the invoice', progress: 'Making the invoice…' },
 };
 
 interface DocumentsPanelProps {
@@ -42,14 +34,11 @@ const sendStates = (documents: readonly DocumentRow[] | undefined) =>
 export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }: DocumentsPanelProps) {
   const documents = useBookingDocuments(booking.id);
   const agreement = useCreateAgreement();
-  const invoice = useCreateInvoice();
   const [confirming, setConfirming] = useState<IssuableKind | null>(null);
-  const [recording, setRecording] = useState<RecordedKind | null>(null);
-  const ids = useId();
   const [message, setMessage] = useState<string | null>(null);
-  const mutations = { rental_agreement: agreement, invoice };
-  const issuing = agreement.isPending ? 'rental_agreement' : invoice.isPending ? 'invoice' : null;
-  const failed = agreement.error ?? invoice.error;
+  const mutations = { rental_agreement: agreement };
+  const issuing = agreement.isPending ? 'rental_agreement' : null;
+  const failed = agreement.error;
 
   // The booking's history lists sends too: refresh it when a queued e-mail goes out or fails.
   const states = documents.data ? sendStates(documents.data.data) : null;
@@ -66,33 +55,12 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
     setConfirming(null);
     setMessage(null);
     agreement.reset();
-    invoice.reset();
     mutations[kind].mutate(booking.id, {
       onSuccess: (d) => {
         setMessage(`${documentName(d)} is ready.`);
         onChanged?.();
       },
     });
-  };
-
-  /** Closing a form puts the focus back on the button that opened it, not on the page. */
-  const closeRecording = () => {
-    const opener = recording ? `${ids}-${recording}` : null;
-    setRecording(null);
-    if (opener) requestAnimationFrame(() => document.getElementById(opener)?.focus());
-  };
-
-  const recorded = (d: DocumentRow) => {
-    closeRecording();
-    setMessage(`${documentName(d)} is ready.`);
-    onChanged?.();
-  };
-
-  const toggleRecording = (kind: RecordedKind) => {
-    setMessage(null);
-    agreement.reset();
-    invoice.reset();
-    setRecording((open) => (open === kind ? null : kind));
   };
 
   const confirmingCurrent = confirming ? current(confirming) : null;
@@ -103,7 +71,7 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
         <div className="space-y-2">
           {dirty ? <Alert tone="warning">Save your changes first: documents are made from the saved booking.</Alert> : null}
           <div className="flex flex-wrap gap-2">
-            {(['rental_agreement', 'invoice'] as const).map((kind) => {
+            {(['rental_agreement'] as const).map((kind) => {
               const existing = current(kind);
               return (
                 <Button
@@ -118,30 +86,8 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
                 </Button>
               );
             })}
-            {(['receipt', 'credit_note'] as const).map((kind) => (
-              <Button
-                key={kind}
-                id={`${ids}-${kind}`}
-                size="sm"
-                variant="secondary"
-                disabled={issuing !== null}
-                aria-expanded={recording === kind}
-                aria-controls={recording === kind ? `${ids}-${kind}-form` : undefined}
-                onClick={() => toggleRecording(kind)}
-              >
-                {RECORD_LABELS[kind]}
-              </Button>
-            ))}
           </div>
-          {recording ? (
-            <div id={`${ids}-${recording}-form`}>
-              {recording === 'receipt' ? (
-                <ReceiptForm bookingId={booking.id} timeZone={timeZone} blocked={dirty} onDone={recorded} onCancel={closeRecording} />
-              ) : (
-                <CreditNoteForm bookingId={booking.id} blocked={dirty} onDone={recorded} onCancel={closeRecording} />
-              )}
-            </div>
-          ) : null}
+          <p className="text-sm text-canvas-700">Invoices, receipts and credit notes come from the money panel below: each one is a ledger record as well as a PDF.</p>
         </div>
       ) : null}
 
