@@ -1,6 +1,6 @@
 import { useId, useState } from 'react';
 import { formatMoney, subtract } from '@shared/money';
-import { SecurityDepositRequest, type InvoiceRow } from '@shared/schemas/invoices';
+import { INVOICE_KIND_LABELS, SecurityDepositRequest, type InvoiceRow } from '@shared/schemas/invoices';
 import { Alert, FormMessage, LiveRegion } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
@@ -11,7 +11,7 @@ import { TextField } from '@/components/ui/text-field';
 import { centsToInput, collector, parseDollars } from '@/lib/amounts';
 import { useZodForm } from '@/lib/form';
 import { useMoveSecurityDeposit, type SecurityDepositMoveRow } from '../api/move-security-deposit';
-import { invoiceName, moneyMethodOptions } from './invoice-labels';
+import { invoiceName, invoiceNumber, moneyMethodOptions } from './invoice-labels';
 
 type Action = 'collect' | 'refund' | 'keep' | 'apply';
 
@@ -102,7 +102,8 @@ function MoveForm({ bookingId, action, initialCents, heldCents, currency, invoic
         {action === 'apply' ? (
           <Select
             label="Invoice"
-            options={invoices.map((i) => ({ value: i.id, label: `${invoiceName(i)}, balance ${money(i.balanceCents)}` }))}
+            // The number and what is owed first: a long option is cut at the end.
+            options={invoices.map((i) => ({ value: i.id, label: `${invoiceNumber(i)}: ${money(i.balanceCents)} owed, ${INVOICE_KIND_LABELS[i.kind].toLowerCase()}` }))}
             placeholder={invoices.length === 1 ? undefined : 'Choose the invoice to pay'}
             required
             {...invoiceField}

@@ -103,8 +103,13 @@ function InvoicePdf({ invoice }: { invoice: InvoiceRow }) {
   );
 }
 
+/** Keyed by the invoice: moving to another invoice (a credit note and the invoice it lowers) starts with no notice or dialog of the last one. */
 export default function InvoiceRoute() {
   const { id = '' } = useParams();
+  return <InvoicePage key={id} id={id} />;
+}
+
+function InvoicePage({ id }: { id: string }) {
   const invoice = useInvoice(id);
   const organization = useOrganization();
   const timeZone = organization.data?.timeZone ?? 'UTC';
@@ -251,11 +256,15 @@ export default function InvoiceRoute() {
             <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-sm">
               <dt className="text-canvas-600">Issued</dt>
               <dd className="text-canvas-900">{formatInvoiceDate(i.issueDate, timeZone) || 'Not yet'}</dd>
-              <dt className="text-canvas-600">Due</dt>
-              <dd className={i.overdue ? 'font-semibold text-rust-700' : 'text-canvas-900'}>
-                {formatInvoiceDate(i.dueDate, timeZone) || 'Set when issued'}
-                {i.overdue ? ' (overdue)' : null}
-              </dd>
+              {isCreditNote ? null : (
+                <>
+                  <dt className="text-canvas-600">Due</dt>
+                  <dd className={i.overdue ? 'font-semibold text-rust-700' : 'text-canvas-900'}>
+                    {formatInvoiceDate(i.dueDate, timeZone) || 'Set when issued'}
+                    {i.overdue ? ' (overdue)' : null}
+                  </dd>
+                </>
+              )}
               <dt className="text-canvas-600">Customer</dt>
               <dd className="break-all text-canvas-900">
                 {i.customer.name}
