@@ -64,7 +64,7 @@ export function controlRouter(payments: Payments, webhooks: WebhookDispatcher, o
       authenticate_url: result.outcome === 'requires_action' ? result.authenticateUrl : null,
       error: result.outcome === 'declined' ? result.error : null,
       errors: result.outcome === 'invalid' ? result.errors : [],
-      message: result.outcome === 'unavailable' ? result.message : null,
+      message: result.outcome === 'unavailable' || result.outcome === 'nothing_to_authenticate' ? result.message : null,
       session: snapshot(s),
       payment_intent: pi ? snapshot(pi) : null,
     });
@@ -77,6 +77,7 @@ export function controlRouter(payments: Payments, webhooks: WebhookDispatcher, o
     if (!pi) throw new ControlError(404, 'not_found', `No payment intent ${piId}.`);
     const result = payments.authenticate(pi, choice);
     const sessionId = payments.sessionIdOf(pi);
+    if (result.outcome === 'nothing_to_authenticate') throw new ControlError(409, 'nothing_to_authenticate', result.message);
     if (result.outcome === 'intent') return res.json({ outcome: result.result, payment_intent: snapshot(pi) });
     return answer(res, loadSession(sessionId!), result);
   };

@@ -47,6 +47,10 @@ const STYLE = `
   details { margin-top: 1.5rem; font-size: .875rem; }
   details ul { padding-left: 1.25rem; }
   .visually-hidden { position: absolute; width: 1px; height: 1px; margin: -1px; padding: 0; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap; border: 0; }
+  @media (max-width: 30rem) {
+    main { margin: 0; border: 0; border-radius: 0; }
+    .row { display: block; }
+  }
   code { font-family: ui-monospace, SFMono-Regular, Menlo, monospace; }
 `;
 

@@ -85,6 +85,8 @@ export function pageRouter(payments: Payments): Router {
         return html(res, 409, sessionStatusPage(store.sessions.get(sessionId!)!));
       case 'requires_action':
       case 'invalid':
+      case 'nothing_to_authenticate':
+        // GET shows the right page for the intent's state now.
         return res.redirect(303, `/authenticate/${pi.id}`);
       case 'intent': {
         // An intent confirmed through the API goes back to its return_url, as a redirect would.

@@ -4,9 +4,11 @@ import {
   findTestCard,
   findTestPaymentMethod,
   LIVE_CARD_IN_TEST_MODE,
+  type CardDecline,
   type CardFieldError,
   type CardInput,
 } from './cards';
+import { buildCharge, buildPaymentIntent, type PaymentIntentInit } from './objects';
 import { ApiError, type ApiErrorBody } from './params';
 import {
   newId,
@@ -37,7 +39,8 @@ export type PayOutcome =
   | { outcome: 'requires_action'; authenticateUrl: string }
   | { outcome: 'declined'; error: ApiErrorBody }
   | { outcome: 'invalid'; errors: CardFieldError[] }
-  | { outcome: 'unavailable'; status: 'complete' | 'expired'; message: string };
+  | { outcome: 'unavailable'; status: 'complete' | 'expired'; message: string }
+  | { outcome: 'nothing_to_authenticate'; message: string };
 
 type ChargeResult = 'succeeded' | 'declined' | 'requires_action';
 
@@ -204,7 +207,7 @@ export class Payments {
       if (closed) return closed;
     }
     if (pi.status !== 'requires_action' || typeof pi.payment_method !== 'string') {
-      return { outcome: 'declined', error: { type: 'invalid_request_error', code: 'payment_intent_unexpected_state', message: 'There is nothing to authenticate for this payment.' } };
+      return { outcome: 'nothing_to_authenticate', message: `This payment is ${pi.status}; it is not waiting for authentication.` };
     }
     const pm = this.store.paymentMethods.get(pi.payment_method)!;
     let charged: ChargeResult;
@@ -229,52 +232,9 @@ export class Payments {
 
   // ----- payment intents ----------------------------------------------------------------------
 
-  newPaymentIntent(init: {
-    amount: number;
-    currency: string;
-    metadata: Record<string, string>;
-    description: string | null;
-    receipt_email: string | null;
-  }): FakePaymentIntent {
-    const id = newId.paymentIntent();
-    const pi: FakePaymentIntent = {
-      id,
-      object: 'payment_intent',
-      amount: init.amount,
-      amount_capturable: 0,
-      amount_received: 0,
-      application: null,
-      application_fee_amount: null,
-      automatic_payment_methods: null,
-      canceled_at: null,
-      cancellation_reason: null,
-      capture_method: 'automatic_async',
-      client_secret: `${id}_secret_${newId.request().slice(4)}${newId.request().slice(4)}`,
-      confirmation_method: 'automatic',
-      created: unixNow(),
-      currency: init.currency,
-      customer: null,
-      description: init.description,
-      last_payment_error: null,
-      latest_charge: null,
-      livemode: false,
-      metadata: init.metadata,
-      next_action: null,
-      on_behalf_of: null,
-      payment_method: null,
-      payment_method_types: ['card'],
-      processing: null,
-      receipt_email: init.receipt_email,
-      review: null,
-      setup_future_usage: null,
-      shipping: null,
-      source: null,
-      statement_descriptor: null,
-      statement_descriptor_suffix: null,
-      status: 'requires_payment_method',
-      transfer_group: null,
-    };
-    this.store.paymentIntents.set(id, pi);
+  newPaymentIntent(init: PaymentIntentInit): FakePaymentIntent {
+    const pi = buildPaymentIntent(init);
+    this.store.paymentIntents.set(pi.id, pi);
     return pi;
   }
 
@@ -364,76 +324,9 @@ export class Payments {
     return 'succeeded';
   }
 
-  private newCharge(
-    pi: FakePaymentIntent,
-    pm: PaymentMethodRecord,
-    email: string | null,
-    decline: { code: string; decline_code?: string; message: string } | null,
-  ): FakeCharge {
-    const id = newId.charge();
-    const charge: FakeCharge = {
-      id,
-      object: 'charge',
-      amount: pi.amount,
-      amount_captured: decline ? 0 : pi.amount,
-      amount_refunded: 0,
-      application: null,
-      application_fee: null,
-      application_fee_amount: null,
-      balance_transaction: decline ? null : newId.balanceTransaction(),
-      billing_details: { address: null, email, name: null, phone: null, tax_id: null },
-      calculated_statement_descriptor: 'GUYLINE TEST',
-      captured: !decline,
-      created: unixNow(),
-      currency: pi.currency,
-      customer: null,
-      description: pi.description,
-      disputed: false,
-      failure_balance_transaction: null,
-      failure_code: decline?.code ?? null,
-      failure_message: decline?.message ?? null,
-      livemode: false,
-      metadata: { ...pi.metadata },
-      on_behalf_of: null,
-      outcome: decline
-        ? {
-            advice_code: null,
-            network_advice_code: null,
-            network_decline_code: null,
-            network_status: 'declined_by_network',
-            reason: decline.decline_code ?? decline.code,
-            risk_level: 'normal',
-            seller_message: 'The bank did not return any further details with this decline.',
-            type: 'issuer_declined',
-          }
-        : {
-            advice_code: null,
-            network_advice_code: null,
-            network_decline_code: null,
-            network_status: 'approved_by_network',
-            reason: null,
-            risk_level: 'normal',
-            seller_message: 'Payment complete.',
-            type: 'authorized',
-          },
-      paid: !decline,
-      payment_intent: pi.id,
-      payment_method: pm.id,
-      payment_method_details: { type: 'card', card: { ...pm.details } },
-      receipt_email: email,
-      receipt_number: null,
-      receipt_url: `${this.baseUrl()}/receipts/${id}`,
-      refunded: false,
-      review: null,
-      shipping: null,
-      source_transfer: null,
-      statement_descriptor: null,
-      statement_descriptor_suffix: null,
-      status: decline ? 'failed' : 'succeeded',
-      transfer_data: null,
-      transfer_group: null,
-    };
-    this.store.charges.set(id, charge);
+  private newCharge(pi: FakePaymentIntent, pm: PaymentMethodRecord, email: string | null, decline: CardDecline | null): FakeCharge {
+    const charge = buildCharge(pi, pm, email, decline, this.baseUrl());
+    this.store.charges.set(charge.id, charge);
     return charge;
   }
 

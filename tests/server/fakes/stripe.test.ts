@@ -392,9 +392,31 @@ describe('payment intents made through the API', () => {
       .catch((e: unknown) => e);
     expect(err).toBeInstanceOf(Stripe.errors.StripeCardError);
     expect(err).toMatchObject({ code: 'card_declined', decline_code: 'insufficient_funds', statusCode: 402 });
+    const charge = await stripe.charges.retrieve(pi.latest_charge as string);
+    expect(charge).toMatchObject({ object: 'charge', status: 'succeeded', paid: true, amount: 12_000, payment_intent: pi.id });
+    expect(charge.payment_method_details?.card).toMatchObject({ brand: 'visa', last4: '4242' });
     await expect(stripe.paymentIntents.create({ amount: 20, currency: 'usd' })).rejects.toMatchObject({ code: 'amount_too_small' });
     const listed = await stripe.paymentIntents.list({ limit: 100 });
     expect(listed.data.some((p) => p.id === pi.id)).toBe(true);
+  });
+
+  it('sends the payer to the authentication page and back to the return_url', async () => {
+    const pi = await stripe.paymentIntents.create({
+      amount: 8_000,
+      currency: 'usd',
+      confirm: true,
+      // Stripe testing documentation, docs.stripe.com/testing, "3D Secure authentication": always asks.
+      payment_method: 'pm_card_authenticationRequired',
+      return_url: 'http://127.0.0.1:3000/pay/back',
+    });
+    expect(pi.status).toBe('requires_action');
+    const url = pi.next_action?.redirect_to_url?.url;
+    expect(url).toBe(`${fake.url}/authenticate/${pi.id}`);
+    const back = await fetch(url!, { method: 'POST', body: new URLSearchParams({ result: 'complete' }), redirect: 'manual' });
+    const location = new URL(back.headers.get('location')!);
+    expect(`${location.origin}${location.pathname}`).toBe('http://127.0.0.1:3000/pay/back');
+    expect(Object.fromEntries(location.searchParams)).toMatchObject({ payment_intent: pi.id, redirect_status: 'succeeded' });
+    expect((await stripe.paymentIntents.retrieve(pi.id)).status).toBe('succeeded');
   });
 });
 
@@ -483,5 +505,19 @@ describe('webhook delivery', () => {
     const repeat = await receiver.waitFor('checkout.session.expired', session.id, 1);
     expect(repeat.id).toBe(event.id);
     expect(receiver.count('checkout.session.expired', session.id)).toBe(2);
+  });
+
+  it('can send every event twice, as the real service sometimes does', async () => {
+    const port = (receiver.server.address() as AddressInfo).port;
+    const twice = await startCardFake({ webhookUrl: `http://127.0.0.1:${port}/hooks`, webhookSecret: SECRET, duplicate: true });
+    try {
+      const client = new Stripe('sk_test_twice', { host: '127.0.0.1', port: twice.port, protocol: 'http', telemetry: false });
+      const pi = await client.paymentIntents.create({ amount: 5_000, currency: 'usd', confirm: true, payment_method: 'pm_card_visa' });
+      const first = await receiver.waitFor('payment_intent.succeeded', pi.id);
+      const second = await receiver.waitFor('payment_intent.succeeded', pi.id, 1);
+      expect(second.id).toBe(first.id);
+    } finally {
+      await twice.close();
+    }
   });
 });

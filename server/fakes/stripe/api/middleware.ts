@@ -67,6 +67,8 @@ function canonical(value: unknown): string {
 }
 
 export interface StoredAnswer {
+  /** When the first answer was given, ms; keys are forgotten after 24 hours, as the real ones are. */
+  at: number;
   endpoint: string;
   params: string;
   status: number;
@@ -74,11 +76,13 @@ export interface StoredAnswer {
   requestId: string;
 }
 
+const KEY_LIFETIME_MS = 24 * 60 * 60 * 1000;
+
 /**
  * `Idempotency-Key` on a POST: the first answer is kept (successes and card errors; refused
  * parameters are not, as with the real service) and replayed with `Idempotent-Replayed: true`
- * for the same key and parameters. The same key on another endpoint or with other parameters is
- * a 400 `idempotency_error`. Keys are kept per API key.
+ * for the same key and parameters within 24 hours. The same key on another endpoint or with
+ * other parameters is a 400 `idempotency_error`. Keys are kept per API key.
  */
 export function idempotency(answers: Map<string, StoredAnswer>): RequestHandler {
   return (req, res, next) => {
@@ -93,7 +97,8 @@ export function idempotency(answers: Map<string, StoredAnswer>): RequestHandler 
     const scope = `${res.locals.apiKey as string}\u0000${key}`;
     const endpoint = `${req.method} ${req.originalUrl.split('?')[0]}`;
     const params = canonical(req.body ?? {});
-    const stored = answers.get(scope);
+    const kept = answers.get(scope);
+    const stored = kept && Date.now() - kept.at < KEY_LIFETIME_MS ? kept : undefined;
     res.set('Idempotency-Key', key);
     if (stored) {
       if (stored.endpoint !== endpoint) {
@@ -121,7 +126,7 @@ export function idempotency(answers: Map<string, StoredAnswer>): RequestHandler 
     const send = res.json.bind(res);
     res.json = (body: unknown) => {
       if (res.statusCode < 400 || res.statusCode === 402) {
-        answers.set(scope, { endpoint, params, status: res.statusCode, body, requestId: res.locals.requestId });
+        answers.set(scope, { at: Date.now(), endpoint, params, status: res.statusCode, body, requestId: res.locals.requestId });
       }
       return send(body);
     };

@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import { checkChargeAmount } from '../amounts';
 import { invalidRequest, noSuch, Params } from '../params';
 import type { Payments } from '../payments';
@@ -34,7 +34,7 @@ export function paymentIntentsRouter(payments: Payments): Router {
     if (!pm) throw noSuch('PaymentMethod', id, 'payment_method');
     return pm;
   };
-  const confirm = (pi: FakePaymentIntent, pm: PaymentMethodRecord | undefined, returnUrl: string | undefined, res: Parameters<typeof requestInfo>[0]) => {
+  const confirm = (pi: FakePaymentIntent, pm: PaymentMethodRecord | undefined, returnUrl: string | undefined, res: Response) => {
     if (payments.sessionIdOf(pi)) {
       throw invalidRequest('This PaymentIntent belongs to a Checkout Session; the payer confirms it on the payment page.', {
         code: 'payment_intent_unexpected_state',
