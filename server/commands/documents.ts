@@ -45,6 +45,8 @@ export async function issueDocument(
       /** The invoice's own lines and totals, printed instead of the booking's whole charges table. */
       lines?: { description: string; amount: string }[];
       summary?: { label: string; amount: string; strong: boolean }[];
+      /** The invoice's (or credit note's) own total: what its e-mail and PDF call "the total". */
+      total?: string;
     };
   } = {},
 ) {
@@ -99,6 +101,7 @@ export async function issueDocument(
     values.schedule = extra.invoice.schedule;
     if (extra.invoice.lines) values.lines = extra.invoice.lines.map((l) => ({ description: l.description, quantity: '', unitPrice: '', extraDays: '', total: l.amount }));
     if (extra.invoice.summary) values.summary = extra.invoice.summary;
+    if (extra.invoice.total) values.totals = { ...values.totals, total: extra.invoice.total };
   }
   const { source } = await templateSource(actor.organizationId, templateNameFor(kind), transaction);
   const rendered = await renderDocument({

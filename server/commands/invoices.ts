@@ -189,6 +189,8 @@ export async function issueInvoice(actor: User, invoiceId: string, req: Request,
   });
   invoice.documentId = doc.id;
   await invoice.save({ transaction: t });
+  // Issued means sent: the customer gets the PDF by e-mail, queued in this transaction.
+  if (booking.customer.email) await sendDocument(actor, doc, booking.customer.email, req, t);
   await audit({ organizationId: organization.id, actorUserId: actor.id, action: 'invoice.issued', subjectType: 'booking', subjectId: booking.id, data: { invoiceId: invoice.id, number, totalCents: invoice.totalCents } }, req, t);
   return invoice;
 }
@@ -202,6 +204,7 @@ function invoiceTable(invoice: Invoice, money: (c: number) => string) {
       ...(invoice.taxCents > 0 ? [{ label: 'Sales tax', amount: money(invoice.taxCents), strong: false }] : []),
       { label: invoice.kind === 'credit_note' ? 'Total credited' : 'Total', amount: money(invoice.totalCents), strong: true },
     ],
+    total: money(invoice.totalCents),
   };
 }
 

@@ -64,6 +64,10 @@ describe('additional charges', () => {
     expect(doc.markdown).toContain('$245.88');
     // Its own table, not the booking's: the tent rented is not on the damage invoice.
     expect(doc.markdown).not.toContain('20x30 pole tent');
+    // Issuing e-mails the invoice's own PDF to the customer.
+    const mail = await waitForMail(s.email, { subject: new RegExp(invoice.number) });
+    expect(mail.attachments.map((a: { sha256: string }) => a.sha256)).toEqual([doc.sha256]);
+    expect(mail.text).toContain('The total is $245.88');
   });
 
   it('a tax-exempt customer pays no tax on additional charges, even on lines marked taxable', async () => {
