@@ -23,6 +23,7 @@ import { calendarFor } from '../../services/calendarFeed';
 import { crewOf, daySheet, fieldBooking } from '../../services/fieldDay';
 import { readFile } from '../../services/storage';
 import { hashToken } from '../../services/tokens';
+import { chargesRouter } from './charges';
 
 export const fieldRouter = Router();
 
@@ -223,3 +224,5 @@ fieldRouter.get('/calendar/:file', validate(FeedParams, 'params'), async (req, r
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.send(await calendarFor(user, organization));
 });
+
+fieldRouter.use('/', chargesRouter);
