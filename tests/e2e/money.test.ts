@@ -245,7 +245,7 @@ describe('money after the event: overpayment kept as credit, additional charges,
     await ownerContext.close();
   });
 
-  it('the office is not offered paying credit back', { timeout: 60_000 }, async () => {
+  it('the office is not offered paying credit back, and a credit spent meanwhile is refused on the amount with what was typed kept', { timeout: 60_000 }, async () => {
     const company = await buildCompany();
     const customer = await buildCustomer(company.organization.id, { name: 'Tamsin Oakes', email: uniqueEmail('tamsin') });
     const tent = await buildItem(company.organization.id, { name: '20x20 pole tent', kind: 'tent', tentType: 'pole', widthFt: 20, lengthFt: 20, quantityOwned: 5, rentalPriceCents: 30_000 });
@@ -262,6 +262,25 @@ describe('money after the event: overpayment kept as credit, additional charges,
     await page.getByRole('heading', { level: 2, name: 'Account credit' }).waitFor();
     await expect.poll(() => amountOn(page, 'customer-credit')).toBe('$25.00');
     expect(await page.getByRole('button', { name: 'Pay credit back' }).count()).toBe(0);
+
+    // The balance invoice; its page offers the 25.00 of credit.
+    const balance = (await api.post(`/api/bookings/${booking.id}/invoices`, { kind: 'balance' })).body as InvoiceRow;
+    await api.post(`/api/invoices/${balance.id}/issue`);
+    await page.goto(`${appUrl()}/app/invoices/${balance.id}`);
+    await page.getByRole('button', { name: 'Pay from credit' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Pay from account credit' });
+    expect(await dialog.getByLabel('Amount').inputValue()).toBe('25.00');
+    // Someone else uses 20.00 of it while the dialog is open: the server's 409 names the amount.
+    expect((await api.post(`/api/invoices/${balance.id}/apply-credit`, { amountCents: 2_000 })).status).toBe(200);
+    await dialog.getByRole('button', { name: 'Pay from credit' }).click();
+    await dialog.getByText('At most $5.00.').waitFor();
+    expect(await dialog.getByLabel('Amount').getAttribute('aria-invalid')).toBe('true');
+    expect(await dialog.getByLabel('Amount').inputValue()).toBe('25.00');
+    await dialog.getByText('The customer has $5.00 of credit.').waitFor();
+    await dialog.getByLabel('Amount').fill('5');
+    await dialog.getByRole('button', { name: 'Pay from credit' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    await expectInvoicePageMatchesApi(page, api, balance.id);
     await context.close();
   });
 });
