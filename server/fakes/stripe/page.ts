@@ -102,6 +102,15 @@ ${rows}
 </table>`;
 }
 
+/**
+ * What the payer reads about a failed try. Card errors carry payer-facing messages already;
+ * the authentication failure's API message is written for developers.
+ */
+export function payerMessage(error: { code?: string | null; message?: string | null }): string {
+  if (error.code === 'payment_intent_authentication_failure') return "Your card's issuer could not confirm this payment.";
+  return error.message ?? 'The payment did not go through.';
+}
+
 export interface PayFormState {
   values: { cardNumber?: string; expiry?: string; cvc?: string; email?: string };
   fieldErrors: CardFieldError[];

@@ -1,5 +1,5 @@
 import express, { Router, type Response } from 'express';
-import { authenticatePage, paidFor, payPage, receiptPage, sessionStatusPage, statusPage, type PayFormState } from './page';
+import { authenticatePage, paidFor, payerMessage, payPage, receiptPage, sessionStatusPage, statusPage, type PayFormState } from './page';
 import type { Payments } from './payments';
 
 function html(res: Response, status: number, body: string) {
@@ -26,7 +26,7 @@ export function pageRouter(payments: Payments): Router {
     if (record.session.status !== 'open') return html(res, 200, sessionStatusPage(record));
     // After a failed authentication the payer lands here again, told why.
     const pi = typeof record.session.payment_intent === 'string' ? store.paymentIntents.get(record.session.payment_intent) : undefined;
-    const formError = req.query.declined !== undefined ? (pi?.last_payment_error?.message ?? null) : null;
+    const formError = req.query.declined !== undefined && pi?.last_payment_error ? payerMessage(pi.last_payment_error) : null;
     html(res, 200, payPage(record, { values: {}, fieldErrors: [], formError }));
   });
 
@@ -49,7 +49,7 @@ export function pageRouter(payments: Payments): Router {
       case 'invalid':
         return html(res, 422, payPage(record, { values, fieldErrors: result.errors, formError: null }));
       case 'declined':
-        return html(res, 402, payPage(record, { values, fieldErrors: [], formError: result.error.message }));
+        return html(res, 402, payPage(record, { values, fieldErrors: [], formError: payerMessage(result.error) }));
       case 'unavailable':
         return html(res, 409, sessionStatusPage(record));
     }

@@ -11,7 +11,6 @@ export interface ApiErrorBody {
   decline_code?: string;
   message: string;
   param?: string;
-  doc_url?: string;
   charge?: string;
   payment_intent?: unknown;
 }

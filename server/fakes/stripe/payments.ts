@@ -194,7 +194,6 @@ export class Payments {
       ...(e.decline_code ? { decline_code: e.decline_code } : {}),
       message: e.message ?? '',
       ...(e.charge ? { charge: e.charge } : {}),
-      ...(e.doc_url ? { doc_url: e.doc_url } : {}),
     };
   }
 
@@ -221,7 +220,6 @@ export class Payments {
         type: 'invalid_request_error',
         code: 'payment_intent_authentication_failure',
         message: AUTHENTICATION_FAILURE,
-        doc_url: 'https://docs.stripe.com/error-codes/payment-intent-authentication-failure',
       };
       this.emit('payment_intent.payment_failed', pi);
       charged = 'declined';
@@ -312,7 +310,6 @@ export class Payments {
         ...(decline.decline_code ? { decline_code: decline.decline_code } : {}),
         message: decline.message,
         charge: charge.id,
-        doc_url: `https://docs.stripe.com/error-codes/${decline.code.replaceAll('_', '-')}`,
       };
       this.emit('payment_intent.payment_failed', pi, o.request);
       return 'declined';

@@ -323,7 +323,7 @@ describe('the test card page', () => {
     const failed = await fetch(first.location!, { method: 'POST', body: new URLSearchParams({ result: 'fail' }), redirect: 'manual' });
     expect(failed.status).toBe(303);
     expect(failed.headers.get('location')).toBe(`/pay/${session.id}?declined=1`);
-    expect(await (await fetch(`${fake.url}${failed.headers.get('location')}`)).text()).toContain('failed authentication');
+    expect(await (await fetch(`${fake.url}${failed.headers.get('location')}`)).text()).toContain("Your card's issuer could not confirm this payment.");
     const pi = await stripe.paymentIntents.retrieve((await stripe.checkout.sessions.retrieve(session.id)).payment_intent as string);
     expect(pi.last_payment_error?.code).toBe('payment_intent_authentication_failure');
 
