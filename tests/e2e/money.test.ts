@@ -262,6 +262,9 @@ describe('money after the event: overpayment kept as credit, additional charges,
     await page.getByRole('heading', { level: 2, name: 'Account credit' }).waitFor();
     await expect.poll(() => amountOn(page, 'customer-credit')).toBe('$25.00');
     expect(await page.getByRole('button', { name: 'Pay credit back' }).count()).toBe(0);
+    // The statement shows what is owed and, apart from it, the account credit.
+    await page.getByRole('link', { name: 'Statement' }).click();
+    await expect.poll(() => amountOn(page, 'statement-credit')).toBe('$25.00');
 
     // The balance invoice; its page offers the 25.00 of credit.
     const balance = (await api.post(`/api/bookings/${booking.id}/invoices`, { kind: 'balance' })).body as InvoiceRow;

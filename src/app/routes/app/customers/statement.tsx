@@ -11,6 +11,7 @@ import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
 import { formatZoned } from '@/lib/zoned-time';
 import { useMe } from '@/features/auth/api/get-me';
+import { useCustomerCredit } from '@/features/invoices/api/get-customer-credit';
 import { customerStatementQueryOptions, useCustomerStatement } from '@/features/invoices/api/get-customer-statement';
 import { StatementTable } from '@/features/invoices/components/statement-table';
 import { useOrganization } from '@/features/organization/api/get-organization';
@@ -26,6 +27,8 @@ export const clientLoader = (queryClient: QueryClient) => async ({ request, para
 export default function CustomerStatementRoute() {
   const { id = '' } = useParams();
   const statement = useCustomerStatement(id);
+  // Account credit is kept apart from what the customer owes, so the statement names it beside the balance.
+  const credit = useCustomerCredit(id);
   const organization = useOrganization();
   const { data: me } = useMe();
   const timeZone = organization.data?.timeZone ?? 'UTC';
@@ -53,6 +56,16 @@ export default function CustomerStatementRoute() {
           <>
             Every charge, payment and credit on this customer’s bookings, oldest first, as of {formatZoned(new Date().toISOString(), timeZone, false)}. Closing balance:{' '}
             <strong className="text-canvas-900 tabular-nums">{balance}</strong>.
+            {credit.data && credit.data.creditCents !== 0 ? (
+              <>
+                {' '}
+                Account credit, apart from that balance:{' '}
+                <strong className="text-canvas-900 tabular-nums" data-testid="statement-credit">
+                  {formatMoney(credit.data.creditCents, credit.data.currency)}
+                </strong>
+                .
+              </>
+            ) : null}
           </>
         }
         actions={
