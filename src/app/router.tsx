@@ -5,6 +5,7 @@ import { PageSpinner } from '@/components/ui/spinner';
 import { paths } from '@/config/paths';
 import { setUnauthenticatedHandler } from '@/lib/api';
 import { forgetSignedIn } from '@/features/auth/api/get-me';
+import { customerSignInAfter401, isCustomerPage } from '@/features/portal/customer-pages';
 import { RouteError } from './routes/error';
 
 /** What a lazy route module may export. */
@@ -37,6 +38,13 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.auth.invite.path, lazy: () => import('./routes/auth/invite').then(c) },
         // Outside the app shell and its sign-in: customers have no account.
         { path: paths.sign.path, lazy: () => import('./routes/sign').then(c) },
+        { path: paths.portal.signIn.path, lazy: () => import('./routes/portal/sign-in').then(c) },
+        { path: paths.portal.welcome.path, lazy: () => import('./routes/portal/welcome').then(c) },
+        { path: paths.portal.root.path, lazy: () => import('./routes/portal/rentals').then(c) },
+        { path: paths.portal.booking.path, lazy: () => import('./routes/portal/booking').then(c) },
+        { path: paths.portal.checkout.path, lazy: () => import('./routes/portal/checkout').then(c) },
+        { path: paths.pay.link.path, lazy: () => import('./routes/pay/pay-link').then(c) },
+        { path: paths.pay.checkout.path, lazy: () => import('./routes/pay/checkout').then(c) },
         {
           path: paths.app.root.path,
           lazy: () => import('./routes/app/root').then(c),
@@ -84,8 +92,14 @@ export function AppRouter() {
   useEffect(() => {
     // A 401 from a data call means the session ended: forget the user and ask them to sign in.
     setUnauthenticatedHandler(() => {
-      forgetSignedIn(queryClient);
       const here = router.state.location;
+      // Customers' pages have their own sign-in (or none); the staff's "me" is not theirs to forget.
+      if (isCustomerPage(here.pathname)) {
+        const to = customerSignInAfter401(here.pathname);
+        if (to) void router.navigate(to, { replace: true });
+        return;
+      }
+      forgetSignedIn(queryClient);
       if (here.pathname === paths.auth.signIn.path) return;
       void router.navigate(paths.auth.signIn.getHref(`${here.pathname}${here.search}`), { replace: true });
     });

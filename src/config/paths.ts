@@ -18,6 +18,26 @@ export const paths = {
   },
   /** The customer's public signing page; the token comes from the e-mailed link. */
   sign: { path: '/sign/:token', getHref: (token: string) => `/sign/${encodeURIComponent(token)}` },
+  /** The customer's own pages ("Your rentals"): signed in by an e-mailed one-time link, outside the staff app. */
+  portal: {
+    root: { path: '/portal', getHref: () => '/portal' },
+    signIn: { path: '/portal/sign-in', getHref: (next?: string) => withQuery('/portal/sign-in', { next }) },
+    welcome: { path: '/portal/welcome', getHref: (token?: string) => withQuery('/portal/welcome', { token }) },
+    booking: { path: '/portal/bookings/:id', getHref: (id: string) => `/portal/bookings/${encodeURIComponent(id)}` },
+    checkout: {
+      path: '/portal/checkouts/:checkoutId',
+      getHref: (checkoutId: string, cancelled?: boolean) => withQuery(`/portal/checkouts/${encodeURIComponent(checkoutId)}`, { cancelled: cancelled ? '1' : undefined }),
+    },
+  },
+  /** An e-mailed pay link: one invoice, paid by card without signing in. */
+  pay: {
+    link: { path: '/pay/:token', getHref: (token: string) => `/pay/${encodeURIComponent(token)}` },
+    checkout: {
+      path: '/pay/:token/checkouts/:checkoutId',
+      getHref: (token: string, checkoutId: string, cancelled?: boolean) =>
+        withQuery(`/pay/${encodeURIComponent(token)}/checkouts/${encodeURIComponent(checkoutId)}`, { cancelled: cancelled ? '1' : undefined }),
+    },
+  },
   app: {
     root: { path: '/app', getHref: () => '/app' },
     dashboard: { path: '', getHref: () => '/app' },
