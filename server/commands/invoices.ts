@@ -213,7 +213,7 @@ export async function voidInvoice(actor: User, invoiceId: string, reason: string
   const invoice = (await Invoice.findOne({ where: { id: invoiceId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
   if (invoice.status === 'void') throw conflict('This invoice is already void.', 'already_void');
   if (invoice.kind === 'credit_note') throw conflict('A credit note is not voided: issue a new invoice for the amount instead.', 'credit_note');
-  if (invoice.creditedCents > 0) throw conflict('Credit notes were issued against this invoice: credit the rest instead of voiding it.', 'has_credit_notes');
+  if (invoice.creditNotesCents > 0) throw conflict('Credit notes were issued against this invoice: credit the rest instead of voiding it.', 'has_credit_notes');
   if (invoice.paidCents > 0) throw conflict('Money was received on this invoice: correct it with a credit note instead.', 'has_payments');
   if (invoice.ledgerEntryId) await reverseEntry(invoice.ledgerEntryId, `Invoice ${invoice.number} void: ${reason}`, actor.id, t);
   invoice.status = 'void';
@@ -243,7 +243,7 @@ export async function createCreditNote(actor: User, invoiceId: string, input: { 
   if (!['open', 'partly_paid', 'paid'].includes(invoice.status)) throw conflict(`Only an issued invoice is credited; this one is ${invoice.status}.`, 'not_issued');
   const organization = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
   const money = (c: number) => formatMoney(c, organization.currency);
-  const creditable = invoice.totalCents - invoice.creditedCents;
+  const creditable = invoice.totalCents - invoice.creditNotesCents;
   if (input.amountCents > creditable) {
     throw conflict(`At most ${money(creditable)} of ${invoice.number} can still be credited.`, 'credit_too_large', { amountCents: `At most ${money(creditable)}.` });
   }
@@ -275,6 +275,7 @@ export async function createCreditNote(actor: User, invoiceId: string, input: { 
     t,
   );
   invoice.creditedCents += offInvoice;
+  invoice.creditNotesCents += input.amountCents;
   invoice.status = statusFor(invoice);
   await invoice.save({ transaction: t });
   const doc = await issueDocument(actor, booking.id, 'credit_note', req, t, {

@@ -21,7 +21,10 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare taxCents: number;
   declare totalCents: number;
   declare paidCents: CreationOptional<number>;
+  /** Taken off this invoice's balance by credit notes. */
   declare creditedCents: CreationOptional<number>;
+  /** The credit notes' whole totals, including what became account credit: at most the invoice's total. */
+  declare creditNotesCents: CreationOptional<number>;
   /** On a credit note: the invoice it lowers. */
   declare creditsInvoiceId: CreationOptional<string | null>;
   /** On a credit note: why. */
@@ -57,6 +60,7 @@ Invoice.init(
     totalCents: cents(),
     paidCents: cents(),
     creditedCents: cents(),
+    creditNotesCents: cents(),
     creditsInvoiceId: { type: DataTypes.UUID, allowNull: true },
     reason: { type: DataTypes.STRING(500), allowNull: true },
     documentId: { type: DataTypes.UUID, allowNull: true },

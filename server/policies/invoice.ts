@@ -11,9 +11,9 @@ export const invoicePolicy = {
     actor.organizationId === invoice.organizationId && desk(actor) && invoice.kind !== 'credit_note' && ['open', 'partly_paid'].includes(invoice.status),
   void: (actor: User, invoice: Invoice) =>
     actor.organizationId === invoice.organizationId && actor.role === 'owner' && invoice.kind !== 'credit_note' && invoice.status !== 'void' &&
-    invoice.paidCents === 0 && invoice.creditedCents === 0,
+    invoice.paidCents === 0 && invoice.creditNotesCents === 0,
   /** A credit note lowers an issued invoice that is not yet fully credited. */
   creditNote: (actor: User, invoice: Invoice) =>
     actor.organizationId === invoice.organizationId && desk(actor) && invoice.kind !== 'credit_note' &&
-    ['open', 'partly_paid', 'paid'].includes(invoice.status) && invoice.creditedCents < invoice.totalCents,
+    ['open', 'partly_paid', 'paid'].includes(invoice.status) && invoice.creditNotesCents < invoice.totalCents,
 };

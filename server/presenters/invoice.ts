@@ -25,6 +25,7 @@ export function presentInvoice(
     totalCents: invoice.totalCents,
     paidCents: invoice.paidCents,
     creditedCents: invoice.creditedCents,
+    creditNotesCents: invoice.creditNotesCents,
     balanceCents: balance,
     currency: extra.currency,
     documentId: invoice.documentId ?? null,
@@ -37,6 +38,8 @@ export function presentInvoice(
       void: can(actor, 'invoice', 'void', invoice),
       recordPayment: can(actor, 'invoice', 'recordPayment', invoice),
       creditNote: can(actor, 'invoice', 'creditNote', invoice),
+      // Paying from account credit is a payment like any other; the credit itself is checked when used.
+      applyCredit: can(actor, 'invoice', 'recordPayment', invoice),
     },
   };
 }

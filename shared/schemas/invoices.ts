@@ -47,8 +47,10 @@ export interface InvoiceRow {
   totalCents: number;
   /** Paid in money, security deposit or account credit, less refunds. */
   paidCents: number;
-  /** Taken off by credit notes. */
+  /** Taken off this invoice's balance by credit notes. */
   creditedCents: number;
+  /** Every credit note's total on this invoice, including what became account credit. */
+  creditNotesCents: number;
   /** total - paid - credited; zero once void. */
   balanceCents: number;
   currency: string;
@@ -58,7 +60,7 @@ export interface InvoiceRow {
   creditsInvoice: { id: string; number: string | null } | null;
   reason: string | null;
   createdAt: string;
-  can: { issue: boolean; void: boolean; recordPayment: boolean; creditNote: boolean };
+  can: { issue: boolean; void: boolean; recordPayment: boolean; creditNote: boolean; applyCredit: boolean };
 }
 
 /** What an additional-charges invoice may bill after the event. */
@@ -125,6 +127,11 @@ export const CreditRefundRequest = z.object({
   reason: z.string({ error: 'Say why.' }).trim().min(3, 'Say why the money goes back.').max(500),
 });
 export type CreditRefundRequest = z.input<typeof CreditRefundRequest>;
+export interface CreditRefundResponse {
+  entryId: string;
+  /** The customer's credit left after this. */
+  creditCents: number;
+}
 
 /** GET /api/customers/:id/credit */
 export interface CustomerCredit {
@@ -213,7 +220,7 @@ export interface BookingLedger {
   /** What the customer owes on the booking (accounts receivable). */
   balanceCents: number;
   invoicedCents: number;
-  /** Taken off by credit notes. */
+  /** What credit notes took off the booking's invoices (the rest of them became account credit). */
   creditedCents: number;
   paidCents: number;
   securityDepositHeldCents: number;

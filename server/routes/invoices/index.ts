@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { dateInZone } from '../../../shared/dates';
 import { IdParams } from '../../../shared/schemas/common';
 import {
-  AccountInput, ApplyCreditRequest, CreateInvoiceRequest, CreditNoteRequest, CreditRefundRequest, type CustomerCredit, InvoiceListQuery, type AccountRow, type CustomerStatement, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
+  AccountInput, ApplyCreditRequest, CreateInvoiceRequest, CreditNoteRequest, CreditRefundRequest, type CreditRefundResponse, type CustomerCredit, InvoiceListQuery, type AccountRow, type CustomerStatement, RecordPaymentRequest, RefundRequest, SecurityDepositRequest, VoidInvoiceRequest, type BookingLedger, type LedgerEntryRow,
 } from '../../../shared/schemas/invoices';
 import {
   applyCredit, createAdditionalInvoice, createCreditNote, createInvoice, issueInvoice, moveSecurityDeposit, recordPayment, refundCredit, refundPayment, voidInvoice,
@@ -139,7 +139,7 @@ invoicesRouter.post('/customers/:id/credit/refunds', authenticate, validate(IdPa
   const { user } = auth(req);
   const customer = sameOrganization(user, await Customer.findByPk(parsed<{ id: string }>(res, 'params').id), 'That customer');
   if (user.role !== 'owner') throw forbidden('Only the owner gives money back.');
-  const result = await withTransaction((t) => refundCredit(user, customer.id, parsed<z.output<typeof CreditRefundRequest>>(res), req, t));
+  const result: CreditRefundResponse = await withTransaction((t) => refundCredit(user, customer.id, parsed<z.output<typeof CreditRefundRequest>>(res), req, t));
   res.status(201).json(result);
 });
 
@@ -198,7 +198,8 @@ invoicesRouter.get('/bookings/:id/ledger', authenticate, validate(IdParams, 'par
   }
   const issued = { bookingId: booking.id, status: { [Op.notIn]: ['void', 'draft'] } };
   const invoiced = await Invoice.sum('totalCents', { where: { ...issued, kind: { [Op.ne]: 'credit_note' } } });
-  const credited = await Invoice.sum('totalCents', { where: { ...issued, kind: 'credit_note' } });
+  // What credit notes took off balances; the rest of a credit note became account credit.
+  const credited = await Invoice.sum('creditedCents', { where: { ...issued, kind: { [Op.ne]: 'credit_note' } } });
   const body: BookingLedger = {
     entries,
     balanceCents: await bookingBalance(booking.id),

@@ -135,7 +135,12 @@ describe('credit notes', () => {
     expect((await s.office.get(`/api/invoices/${deposit.id}`)).body).toMatchObject({ status: 'paid', creditedCents: 0, balanceCents: 0 });
     expect((await s.office.get(`/api/customers/${s.customer.id}/credit`)).body).toMatchObject({ creditCents: 5_000 });
     // AR on the booking stays at zero: the customer owes nothing and is owed 50.00 as credit.
-    expect((await s.office.get(`/api/bookings/${booking.id}/ledger`)).body).toMatchObject({ balanceCents: 0, customerCreditCents: 5_000 });
+    expect((await s.office.get(`/api/bookings/${booking.id}/ledger`)).body).toMatchObject({ balanceCents: 0, creditedCents: 0, customerCreditCents: 5_000 });
+    // Credit notes on one invoice never add up to more than its total, whatever part became account credit.
+    expect((await s.office.get(`/api/invoices/${deposit.id}`)).body).toMatchObject({ creditNotesCents: 5_000, can: { creditNote: true } });
+    const again = await s.office.post(`/api/invoices/${deposit.id}/credit-notes`, { amountCents: 14_479 - 5_000 + 1, reason: 'Again' });
+    expect(again.status).toBe(409);
+    expect(again.body.error.fields.amountCents).toMatch(/\$94\.79/);
 
     const balance = await s.issued(booking.id, { kind: 'balance' });
     expect((await s.office.post(`/api/invoices/${balance.id}/apply-credit`, { amountCents: 5_001 })).body.error.code).toBe('more_than_credit');

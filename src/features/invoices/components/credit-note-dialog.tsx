@@ -11,7 +11,8 @@ import { useCreateCreditNote } from '../api/create-credit-note';
 import { invoiceNumber } from './invoice-labels';
 
 /** What a credit note can still take off: the invoice's total less the credit notes before it. */
-export const creditableCents = (i: Pick<InvoiceRow, 'totalCents' | 'creditedCents'>) => Math.max(0, subtract(i.totalCents, i.creditedCents));
+/** Credit notes on one invoice add up to its total at most, counting the parts that became account credit. */
+export const creditableCents = (i: Pick<InvoiceRow, 'totalCents' | 'creditNotesCents'>) => Math.max(0, subtract(i.totalCents, i.creditNotesCents));
 
 /**
  * How a credit of `amountCents` lands: first off what is still owed on the invoice, the rest as

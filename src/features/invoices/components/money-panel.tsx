@@ -36,13 +36,6 @@ interface MoneyPanelProps {
   onChanged?: () => void;
 }
 
-/**
- * The part of the booking's credit notes that did not come off a balance (the invoice was paid
- * already) and became account credit: the gap between the booking's balance and invoiced less
- * credited less paid.
- */
-const creditedToAccount = (l: Pick<BookingLedger, 'balanceCents' | 'invoicedCents' | 'creditedCents' | 'paidCents'>) => l.balanceCents - (l.invoicedCents - l.creditedCents - l.paidCents);
-
 /** Money that may still come in on an invoice, as the server allows it. */
 const payable = (i: InvoiceRow) => i.kind !== 'credit_note' && i.can.recordPayment && i.balanceCents > 0;
 
@@ -280,11 +273,8 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
               ))}
             </dl>
             <p className="mt-2 text-sm text-canvas-700">
-              The balance is what was invoiced, less credit notes, less what was paid
-              {creditedToAccount(ledger.data) > 0
-                ? `; ${money(creditedToAccount(ledger.data))} of the credit notes came after the invoices were paid, so it went to the customer’s account credit instead`
-                : ''}
-              .
+              The balance is what was invoiced, less what credit notes took off, less what was paid (net of refunds). A credit note on an invoice that was
+              already paid becomes the customer’s account credit instead.
             </p>
             {ledger.data.customerCreditCents !== 0 ? (
               <Alert tone="info" className="mt-3" title="The customer has account credit.">
