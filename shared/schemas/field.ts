@@ -69,7 +69,7 @@ export const PHOTO_STAGE_LABELS: Record<PhotoStage, string> = {
 export const PHOTO_MAX_BYTES = 10 * 1024 * 1024;
 export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/avif'] as const;
 
-/** The form fields beside the photo file (multipart, so every value arrives as text). */
+/** What a photo shows, in the upload's query string (so every value arrives as text). */
 export const PhotoFields = z.object({
   stage: z.enum(PHOTO_STAGES, { error: 'Say what the photo shows: site, delivered, set up, pickup or damage.' }),
   /** For a damage photo: the return line (catalog item id, or text: and the description). */

@@ -60,6 +60,13 @@ export const paths = {
     bookingNew: { path: 'bookings/new', getHref: (customerId?: string) => withQuery('/app/bookings/new', { customerId }) },
     booking: { path: 'bookings/:id', getHref: (id: string) => `/app/bookings/${encodeURIComponent(id)}` },
     invoices: { path: 'invoices', getHref: () => '/app/invoices' },
+    field: { path: 'field', getHref: () => '/app/field' },
+    fieldDay: { path: 'field/days/:date', getHref: (date: string) => `/app/field/days/${encodeURIComponent(date)}` },
+    fieldLoadList: { path: 'field/days/:date/load-list', getHref: (date: string) => `/app/field/days/${encodeURIComponent(date)}/load-list` },
+    fieldBooking: { path: 'field/bookings/:id', getHref: (id: string) => `/app/field/bookings/${encodeURIComponent(id)}` },
+    fieldSiteCheck: { path: 'field/bookings/:id/site-check', getHref: (id: string) => `/app/field/bookings/${encodeURIComponent(id)}/site-check` },
+    fieldCheckIn: { path: 'field/bookings/:id/check-in', getHref: (id: string) => `/app/field/bookings/${encodeURIComponent(id)}/check-in` },
+    fieldCalendar: { path: 'field/calendar', getHref: () => '/app/field/calendar' },
     invoice: { path: 'invoices/:id', getHref: (id: string) => `/app/invoices/${encodeURIComponent(id)}` },
   },
 } as const;

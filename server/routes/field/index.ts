@@ -8,6 +8,7 @@ import {
   type CalendarFeedCreated, type CalendarFeedState, type CrewMember,
 } from '../../../shared/schemas/field';
 import { IdParams } from '../../../shared/schemas/common';
+import { dateInZone } from '../../../shared/dates';
 import { addPhoto, assignCrew, markReadyToStake, markStop, saveReturnCheck, saveSiteCheck } from '../../commands/field';
 import { createCalendarFeed, revokeCalendarFeed } from '../../commands/fieldCalendar';
 import { sequelize, withTransaction } from '../../db';
@@ -37,6 +38,13 @@ async function answer(req: Request, res: Response, status = 200) {
 }
 
 // --- day sheets and load lists -------------------------------------------------------------
+
+/** The crew's home: today on the company's calendar. */
+fieldRouter.get('/today', authenticate, async (req, res) => {
+  const { user, organization } = auth(req);
+  authorize(user, 'field', 'read');
+  res.json(await daySheet(user, organization, dateInZone(new Date(), organization.timeZone)));
+});
 
 fieldRouter.get('/days/:date', authenticate, validate(DayParams, 'params'), async (req, res) => {
   const { user, organization } = auth(req);
@@ -102,8 +110,9 @@ fieldRouter.post(
     authorize(user, 'field', 'work', booking);
     next();
   },
+  // What the photo shows travels in the query string, beside the one file of the form.
+  validate(PhotoFields, 'query'),
   singleFile(PHOTO_MAX_BYTES),
-  validate(PhotoFields),
   async (req, res) => {
     const { user } = auth(req);
     const file = req.file!;
@@ -115,7 +124,7 @@ fieldRouter.post(
     }
     const base = (file.originalname.replace(/\.[^.]*$/, '').replace(/[^\w .-]+/g, '_').trim() || 'photo').slice(0, 200);
     await withTransaction((t) =>
-      addPhoto(user, bookingId(res), { filename: `${base}.${detected.ext}`, contentType: detected.mime, data: file.buffer }, parsed<z.output<typeof PhotoFields>>(res), req, t),
+      addPhoto(user, bookingId(res), { filename: `${base}.${detected.ext}`, contentType: detected.mime, data: file.buffer }, parsed<z.output<typeof PhotoFields>>(res, 'query'), req, t),
     );
     await answer(req, res, 201);
   },

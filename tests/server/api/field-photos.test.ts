@@ -16,9 +16,7 @@ const ELF = Buffer.concat([Buffer.from('7f454c4602010100000000000000000002003e00
 const HTML = Buffer.from('<!DOCTYPE html><html><body><script>document.title = "owned"</script><img src=x onerror=alert(1)></body></html>');
 
 const upload = (c: ApiClient, bookingId: string, bytes: Buffer, filename: string, fields: Record<string, string> = { stage: 'delivered' }, contentType = 'image/jpeg') => {
-  let r = c.agent.post(`/api/field/bookings/${bookingId}/photos`).set('X-CSRF-Token', c.csrf).set('X-Forwarded-For', c.ip);
-  for (const [k, v] of Object.entries(fields)) r = r.field(k, v);
-  return r.attach('file', bytes, { filename, contentType });
+  return c.agent.post(`/api/field/bookings/${bookingId}/photos`).query(fields).set('X-CSRF-Token', c.csrf).set('X-Forwarded-For', c.ip).attach('file', bytes, { filename, contentType });
 };
 
 describe('field photos', () => {

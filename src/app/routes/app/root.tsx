@@ -14,6 +14,7 @@ import { requireMe } from '../../guards';
 /** The navigation, in order; an entry shows only when the server lists its area. */
 const NAVIGATION: ReadonlyArray<{ area: Area } & ShellNavItem> = [
   { area: 'dashboard', label: 'Home', to: paths.app.root.getHref(), end: true },
+  { area: 'field', label: 'Day sheets', to: paths.app.field.getHref() },
   { area: 'bookings', label: 'Bookings', to: paths.app.bookings.getHref() },
   { area: 'invoices', label: 'Invoices', to: paths.app.invoices.getHref() },
   { area: 'customers', label: 'Customers', to: paths.app.customers.getHref() },

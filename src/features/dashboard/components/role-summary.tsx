@@ -11,8 +11,8 @@ const ROLE_TEXT: Record<Role, { today: string; later: string }> = {
     later: 'Rental agreements, invoices and offline payments are on their way.',
   },
   crew: {
-    today: 'You can see each booking’s site details, surface, anchoring and what goes on the truck, and mark bookings out and returned. Prices stay with the office.',
-    later: 'Day sheets, load lists, site photos and the damage check-in are on their way.',
+    today: 'Day sheets show each day’s deliveries and pickups with the site, the load list and your own stops first. On a stop you fill in the site checklist, mark it delivered and set up with photos, and check in what comes back. Prices stay with the office.',
+    later: 'Subscribe to your stops in your phone’s calendar from Day sheets, My calendar feed.',
   },
   bookkeeper: {
     today: 'You can read bookings with their quotes, the customers and the catalog.',

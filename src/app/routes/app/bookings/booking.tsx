@@ -16,6 +16,7 @@ import { StatusBadge } from '@/features/bookings/components/status';
 import { bookingDocumentsQueryOptions } from '@/features/documents/api/get-booking-documents';
 import { DocumentsPanel } from '@/features/documents/components/documents-panel';
 import { useMe } from '@/features/auth/api/get-me';
+import { BookingFieldSection } from '@/features/field/components/booking-field-section';
 import { MoneyPanel } from '@/features/invoices/components/money-panel';
 import { useEditorData } from './editor-data';
 import { requireArea } from '../../../guards';
@@ -35,7 +36,8 @@ export default function BookingRoute() {
   const { id = '' } = useParams();
   const booking = useBooking(id);
   const data = useEditorData();
-  const isOwner = useMe().data?.user.role === 'owner';
+  const me = useMe().data;
+  const isOwner = me?.user.role === 'owner';
   const queryClient = useQueryClient();
   // Issuing and sending show on the booking's history.
   const refreshHistory = useCallback(() => void queryClient.invalidateQueries({ queryKey: bookingHistoryQueryOptions(id).queryKey }), [queryClient, id]);
@@ -116,6 +118,7 @@ export default function BookingRoute() {
           }
         />
       )}
+      {me?.areas.includes('field') ? <BookingFieldSection booking={b} /> : null}
     </>
   );
 }
