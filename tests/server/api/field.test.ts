@@ -196,6 +196,15 @@ describe('the locate rule', () => {
     expect(res.body.safety.wind.occupied).toMatchObject({ mph: 30, beaufort: 6 }); // issue default 30 mph; NWS Beaufort force 6 is 25–31 mph (from memory of that table)
     expect(res.body.safety.tents[0]).toMatchObject({ areaSqFt: 600, occupantLoad: 40, exits: { count: 2, minWidthIn: 72 } }); // IFC 2018 Table 1004.5 (600/15); Table 3103.12.2
     expect(res.body.safety.cautions.some((x: { text: string }) => /811/.test(x.text))).toBe(true);
+
+    // The owner changes the limits in Company settings; the checklist follows.
+    const owner = await as(c.owner);
+    const rules = (await owner.get('/api/organization/rules')).body;
+    const put = await owner.agent.put('/api/organization/rules').set('X-CSRF-Token', owner.csrf).set('X-Forwarded-For', owner.ip).send({ ...rules, occupiedWindLimitMph: 35, windLimitMph: 45 });
+    expect(put.status).toBe(200);
+    const after = await (await as(c.crew)).get(`/api/field/bookings/${a.id}`);
+    expect(after.body.safety.wind.occupied).toMatchObject({ mph: 35, beaufort: 7 }); // NWS Beaufort table: force 7 is 32–38 mph
+    expect(after.body.safety.wind.takeDown).toMatchObject({ mph: 45, beaufort: 8 }); // NWS Beaufort table: force 8 is 39–46 mph (from memory of that table)
   });
 });
 
