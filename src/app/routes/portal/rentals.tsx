@@ -1,6 +1,53 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { EmptyState } from '@/components/ui/empty-state';
 import { PageSpinner } from '@/components/ui/spinner';
+import { portalBookingsQueryOptions, usePortalBookings } from '@/features/portal/api/get-bookings';
+import { usePortalMe } from '@/features/portal/api/get-portal-me';
+import { PortalLayout } from '@/features/portal/components/portal-layout';
+import { QueryProblem } from '@/features/portal/components/query-problem';
+import { RentalsList } from '@/features/portal/components/rentals-list';
 
-/** Being built: the customer's pages (issue 7). */
-export default function CustomerPagePlaceholder() {
-  return <PageSpinner />;
+export { PortalRouteError as ErrorBoundary } from '@/features/portal/components/portal-route-error';
+
+export const clientLoader = (queryClient: QueryClient) => async () => {
+  void queryClient.prefetchQuery(portalBookingsQueryOptions());
+  return null;
+};
+
+/** "Your rentals": every booking the customer has, with whichever companies have their address. */
+export default function PortalRentalsRoute() {
+  const bookings = usePortalBookings();
+  const me = usePortalMe();
+  const list = bookings.data?.data ?? [];
+  const companies = new Map(list.map((b) => [b.company.id, b.company]));
+  // One company: its name and contact head the page. Several: each has its own heading below.
+  const company = companies.size === 1 ? [...companies.values()][0] : null;
+  const needing = list.filter((b) => b.needsAction).length;
+
+  return (
+    <PortalLayout title="Your rentals" company={company} signedIn>
+      {me.data?.name ? <p className="-mt-2 mb-4 text-canvas-700">Hello, {me.data.name}.</p> : null}
+      {bookings.isPending ? (
+        <PageSpinner label="Loading your rentals…" />
+      ) : bookings.isError ? (
+        <QueryProblem error={bookings.error} what="your rentals" onRetry={() => void bookings.refetch()} />
+      ) : list.length === 0 ? (
+        <EmptyState title="No rentals yet">
+          <p>
+            Nothing is booked under {me.data?.email ? <strong className="break-all">{me.data.email}</strong> : 'this address'}. If you have booked with a
+            rental company, ask them which e-mail address they have for you.
+          </p>
+        </EmptyState>
+      ) : (
+        <>
+          {needing > 0 ? (
+            <p className="mb-4 rounded-md border border-ochre-200 bg-ochre-50 px-4 py-3 text-sm text-ochre-800" role="status">
+              {needing === 1 ? 'One booking needs' : `${needing} bookings need`} your attention: an agreement to sign or an amount to pay.
+            </p>
+          ) : null}
+          <RentalsList bookings={list} />
+        </>
+      )}
+    </PortalLayout>
+  );
 }
