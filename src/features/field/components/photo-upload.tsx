@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { PHOTO_MAX_BYTES, type PhotoStage } from '@shared/schemas/field';
 import { Alert } from '@/components/ui/alert';
 import { errorMessage, isApiError } from '@/lib/api';
@@ -12,7 +12,7 @@ function uploadMessage(error: unknown): string {
 }
 
 /** A camera button: on a phone it opens the camera; the server checks what arrives is an image. */
-export function PhotoUpload({ bookingId, stage, lineKey, label, disabled }: { bookingId: string; stage: PhotoStage; lineKey?: string; label: string; disabled?: boolean }) {
+export function PhotoUpload({ bookingId, stage, lineKey, label, disabled }: { bookingId: string; stage: PhotoStage; lineKey?: string; label: ReactNode; disabled?: boolean }) {
   const id = useId();
   const upload = useUploadPhoto(bookingId);
   const [progress, setProgress] = useState(0);

@@ -141,14 +141,14 @@ export function ReturnCheckForm({ booking }: { booking: FieldBooking }) {
                 </legend>
                 <div className="grid grid-cols-2 gap-3">
                   <TextField
-                    label={`Came back, ${line.description}`}
+                    label={<>Came back<span className="sr-only">, {line.description}</span></>}
                     inputMode="numeric"
                     value={v.returned}
                     onChange={(e) => setLine(i, { returned: e.target.value })}
                     error={errors[`lines.${i}.returned`]}
                   />
                   <TextField
-                    label={`Damaged, ${line.description}`}
+                    label={<>Damaged<span className="sr-only">, {line.description}</span></>}
                     inputMode="numeric"
                     value={v.damaged}
                     onChange={(e) => setLine(i, { damaged: e.target.value })}
@@ -158,7 +158,7 @@ export function ReturnCheckForm({ booking }: { booking: FieldBooking }) {
                 {missing !== null && missing > 0 ? <p className="text-sm font-semibold text-rust-800">{missing} missing</p> : null}
                 {hasDamage || v.notes || errors[`lines.${i}.notes`] ? (
                   <TextArea
-                    label={`What is damaged, ${line.description}`}
+                    label={<>What is damaged<span className="sr-only">, {line.description}</span></>}
                     rows={2}
                     value={v.notes}
                     onChange={(e) => setLine(i, { notes: e.target.value })}
@@ -168,7 +168,7 @@ export function ReturnCheckForm({ booking }: { booking: FieldBooking }) {
                 {hasDamage ? (
                   <>
                     <PhotoList photos={photos} empty="No damage photos yet." />
-                    <PhotoUpload bookingId={bookingId} stage="damage" lineKey={line.key} label={`Photo of the damage, ${line.description}`} />
+                    <PhotoUpload bookingId={bookingId} stage="damage" lineKey={line.key} label={<>Photo of the damage<span className="sr-only">, {line.description}</span></>} />
                   </>
                 ) : null}
               </fieldset>
