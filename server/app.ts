@@ -8,6 +8,7 @@ import { pinoHttp } from 'pino-http';
 import { env } from './env';
 import { logger } from './logger';
 import { csrf } from './middlewares/csrf';
+import { webhooksRouter } from './routes/webhooks';
 import { errorHandler, notFoundHandler, requireJson } from './middlewares/errorHandler';
 import { apiRouter } from './routes';
 
@@ -38,6 +39,8 @@ export function createApp(options: AppOptions = {}) {
   );
   if (env.LOG_LEVEL !== 'silent') app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
 
+  // Webhooks first: they need the raw body for their signature, and carry no cookies or CSRF token.
+  app.use('/api/webhooks', webhooksRouter);
   app.use('/api', cookieParser(), express.json({ limit: '1mb' }), requireJson, csrf, apiRouter(), notFoundHandler);
 
   if (options.serveClient) {

@@ -14,6 +14,12 @@ const EnvSchema = z.object({
   /** The local fakes' own HTTP API (the mail sink's caught messages); set when the fakes run. */
   MAIL_SINK_URL: z.string().url().optional(),
   FAKES: z.enum(['on', 'off']).default('off'),
+  /** Card payments: the processor's secret key; card payments are off without one. */
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_/, 'STRIPE_SECRET_KEY must be an sk_test_ or sk_live_ key').optional(),
+  /** Where the processor's API is: the local fake (http://127.0.0.1:2527) or empty for the real service. */
+  STRIPE_API_URL: z.string().url('STRIPE_API_URL must be a URL like http://127.0.0.1:2527').optional(),
+  /** The secret that signs the processor's webhook deliveries (whsec_...). */
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SESSION_DAYS: z.coerce.number().int().min(1).max(90).default(14),
   /** Express's `trust proxy`: which hops may set X-Forwarded-For (a reverse proxy on this machine by default). */

@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { spawn, type ChildProcess } from 'node:child_process';
 import net from 'node:net';
 import pg from 'pg';
@@ -8,6 +9,10 @@ declare module 'vitest' {
     smtpUrl: string;
     mailSinkUrl: string;
     appUrl: string;
+    /** The card-payment fake: its API and payment pages, and the secret its webhooks are signed with. */
+    cardFakeUrl: string;
+    stripeWebhookSecret: string;
+    stripeSecretKey: string;
   }
 }
 
@@ -67,9 +72,14 @@ export default async function setup(project: TestProject) {
   const sink = await startMailSink({ smtpPort: 0, httpPort: 0 });
 
   // A real app server (built client, job workers) for the browser tests; its workers also send
-  // the mail that the API tests queue.
+  // the mail that the API tests queue, and handle the card fake's webhooks.
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
+  const { startCardFake } = await import('../server/fakes/stripe');
+  const stripeWebhookSecret = `whsec_test_${randomBytes(16).toString('hex')}`;
+  const stripeSecretKey = 'sk_test_guyline_tests';
+  // Short retry delays: a test that makes the app refuse a delivery sees the retry within seconds.
+  const card = await startCardFake({ port: 0, webhookUrl: `${appUrl}/api/webhooks/stripe`, webhookSecret: stripeWebhookSecret, apiKey: stripeSecretKey, retryDelaysMs: [300, 1000, 3000, 10_000] });
   // Plain node with tsx's loader, so the server's parent is this process: it stops by itself if
   // the test run dies without its teardown (an orphan would take the next run's mail jobs).
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
@@ -82,6 +92,9 @@ export default async function setup(project: TestProject) {
       SMTP_URL: sink.smtpUrl,
       MAIL_SINK_URL: sink.httpUrl,
       FAKES: 'on',
+      STRIPE_SECRET_KEY: stripeSecretKey,
+      STRIPE_API_URL: card.url,
+      STRIPE_WEBHOOK_SECRET: stripeWebhookSecret,
       LOG_LEVEL: 'warn',
     },
     stdio: ['ignore', 'inherit', 'inherit'],
@@ -91,11 +104,15 @@ export default async function setup(project: TestProject) {
   project.provide('smtpUrl', sink.smtpUrl);
   project.provide('mailSinkUrl', sink.httpUrl);
   project.provide('appUrl', appUrl);
+  project.provide('cardFakeUrl', card.url);
+  project.provide('stripeWebhookSecret', stripeWebhookSecret);
+  project.provide('stripeSecretKey', stripeSecretKey);
 
   return async () => {
     child.kill('SIGTERM');
     await new Promise((r) => setTimeout(r, 300));
     if (child.exitCode === null) child.kill('SIGKILL');
     await sink.close();
+    await card.close();
   };
 }

@@ -6,6 +6,9 @@ process.env.SMTP_URL = inject('smtpUrl');
 process.env.MAIL_SINK_URL = inject('mailSinkUrl');
 process.env.APP_URL = inject('appUrl');
 process.env.FAKES = 'on';
+process.env.STRIPE_SECRET_KEY = inject('stripeSecretKey');
+process.env.STRIPE_API_URL = inject('cardFakeUrl');
+process.env.STRIPE_WEBHOOK_SECRET = inject('stripeWebhookSecret');
 
 afterAll(async () => {
   const { stopBoss } = await import('../server/services/jobs');

@@ -33,7 +33,8 @@ export async function issueDocument(
   actor: User,
   bookingId: string,
   kind: DocumentKind,
-  req: Request,
+  /** The request behind it; null when the company itself acts (a card payment reported by webhook). */
+  req: Request | null,
   transaction: Transaction,
   extra: {
     payment?: PaymentDetails;
@@ -131,7 +132,7 @@ export async function issueDocument(
     for (const r of pending) {
       r.status = 'replaced';
       await r.save({ transaction });
-      await SigningEvent.create({ organizationId: r.organizationId, signingRequestId: r.id, event: 'replaced', ip: req.ip ?? null, userAgent: (req.get('user-agent') ?? '').slice(0, 400) || null, detail: `by ${number}` }, { transaction });
+      await SigningEvent.create({ organizationId: r.organizationId, signingRequestId: r.id, event: 'replaced', ip: req?.ip ?? null, userAgent: (req?.get('user-agent') ?? '').slice(0, 400) || null, detail: `by ${number}` }, { transaction });
     }
   }
   await audit(
@@ -146,7 +147,7 @@ export async function issueDocument(
  * Queues the e-mail that carries a document. A second request within a minute, or while one is
  * still queued, returns the same send: a double click sends once.
  */
-export async function sendDocument(actor: User, document: Document, to: string, req: Request, transaction: Transaction) {
+export async function sendDocument(actor: User, document: Document, to: string, req: Request | null, transaction: Transaction) {
   await Document.findByPk(document.id, { transaction, lock: transaction.LOCK.UPDATE });
   const recent = await DocumentSend.findOne({
     where: {

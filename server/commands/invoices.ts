@@ -18,6 +18,7 @@ import { quoteBooking } from '../services/pricing';
 import { rulesOf } from '../services/rules';
 import { audit } from './audit';
 import { issueDocument, sendDocument } from './documents';
+import { queueJob } from '../services/jobs';
 
 type Full = Booking & { customer: Customer; lines: BookingLine[] };
 
@@ -317,8 +318,13 @@ export async function recordPayment(
   input: {
     method: ReceiptMethod; reference: string; receivedAt: Date; allocations: { invoiceId: string; amountCents: number }[]; fieldFor: (i: number) => string;
     keepExcessAsCredit?: boolean;
+    /**
+     * The money is already taken (a card payment the processor reports): nothing is refused. What
+     * the invoice no longer owes (paid or voided meanwhile) becomes the customer's account credit.
+     */
+    moneyAlreadyTaken?: boolean;
   },
-  req: Request,
+  req: Request | null,
   t: Transaction,
 ) {
   const ids = [...new Set(input.allocations.map((a) => a.invoiceId))].sort();
@@ -331,17 +337,18 @@ export async function recordPayment(
     const inv = byId.get(a.invoiceId);
     if (!inv) fields[input.fieldFor(i).replace('amountCents', 'invoiceId')] = 'Unknown invoice.';
     else if (inv.kind === 'credit_note') fields[input.fieldFor(i)] = `${inv.number} is a credit note: it takes no payment.`;
-    else if (!['open', 'partly_paid'].includes(inv.status)) fields[input.fieldFor(i)] = `Invoice ${inv.number ?? '(draft)'} is ${inv.status.replace('_', ' ')}: it takes no payment.`;
+    else if (!['open', 'partly_paid'].includes(inv.status) && !input.moneyAlreadyTaken) fields[input.fieldFor(i)] = `Invoice ${inv.number ?? '(draft)'} is ${inv.status.replace('_', ' ')}: it takes no payment.`;
   });
   if (Object.keys(fields).length) throw badRequest('Some invoices cannot take this payment.', fields);
   const bookingIds = new Set(invoices.map((i) => i.bookingId));
   if (bookingIds.size !== 1) throw badRequest('A payment covers invoices of one booking.', { allocations: 'Pick invoices of one booking.' });
   const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
-  const keepExcess = !!input.keepExcessAsCredit && input.allocations.length === 1 && input.method !== 'credit' && input.method !== 'security_deposit';
+  const keepExcess =
+    !!input.moneyAlreadyTaken || (!!input.keepExcessAsCredit && input.allocations.length === 1 && input.method !== 'credit' && input.method !== 'security_deposit');
   const over: Record<string, string> = {};
   const applied = input.allocations.map((a, i) => {
     const inv = byId.get(a.invoiceId)!;
-    const open = openOf(inv);
+    const open = ['open', 'partly_paid'].includes(inv.status) ? Math.max(0, openOf(inv)) : 0;
     if (a.amountCents <= open) return a.amountCents;
     if (keepExcess) return open;
     over[input.fieldFor(i)] = `More than the ${formatMoney(open, currency)} left on ${inv.number}.`;
@@ -441,12 +448,24 @@ export async function refundCredit(
 export async function refundPayment(actor: User, paymentId: string, input: { amountCents: number; reason: string }, req: Request, t: Transaction) {
   const payment = (await Payment.findOne({ where: { id: paymentId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
   await Booking.findByPk(payment.bookingId, { transaction: t, lock: t.LOCK.UPDATE });
-  const already = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id }, transaction: t })) ?? 0);
+  // Pending card refunds count: they are on their way.
+  const already = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id, status: { [Op.ne]: 'failed' } }, transaction: t })) ?? 0);
   // The part kept as account credit goes back through the credit (refundCredit), not the payment.
   const refundable = payment.amountCents - payment.creditCents - already;
   const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
   if (input.amountCents > refundable) {
     throw conflict(`At most ${formatMoney(refundable, currency)} of this payment can be refunded.`, 'refund_too_large', { amountCents: `At most ${formatMoney(refundable, currency)}.` });
+  }
+  const byCard = payment.method === 'card' && !!payment.stripePaymentIntentId;
+  if (byCard) {
+    // The processor returns the money; its confirmation (webhook) posts the entry and reopens the invoices.
+    const refund = await Refund.create(
+      { organizationId: actor.organizationId, paymentId: payment.id, bookingId: payment.bookingId, amountCents: input.amountCents, reason: input.reason, status: 'pending', createdById: actor.id },
+      { transaction: t },
+    );
+    await queueJob('card-refund', { refundId: refund.id }, t);
+    await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.refund_requested', subjectType: 'booking', subjectId: payment.bookingId, data: { paymentId: payment.id, refundId: refund.id, amountCents: input.amountCents, reason: input.reason } }, req, t);
+    return refund;
   }
   const entry = await postEntry(
     {
@@ -459,8 +478,14 @@ export async function refundPayment(actor: User, paymentId: string, input: { amo
     { organizationId: actor.organizationId, paymentId: payment.id, bookingId: payment.bookingId, amountCents: input.amountCents, reason: input.reason, ledgerEntryId: entry.id, createdById: actor.id },
     { transaction: t },
   );
-  // The invoices this payment paid are owed again, the most recently paid first.
-  let left = input.amountCents;
+  await reopenInvoices(payment, input.amountCents, t);
+  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.refunded', subjectType: 'booking', subjectId: payment.bookingId, data: { paymentId: payment.id, amountCents: input.amountCents, reason: input.reason } }, req, t);
+  return refund;
+}
+
+/** The invoices a payment paid owe again by the refunded amount, the most recently paid first. */
+export async function reopenInvoices(payment: Payment, amountCents: number, t: Transaction) {
+  let left = amountCents;
   const allocations = await PaymentAllocation.findAll({ where: { paymentId: payment.id }, order: [['id', 'DESC']], transaction: t });
   for (const a of allocations) {
     if (left === 0) break;
@@ -472,8 +497,6 @@ export async function refundPayment(actor: User, paymentId: string, input: { amo
     await inv.save({ transaction: t });
     left -= back;
   }
-  await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.refunded', subjectType: 'booking', subjectId: payment.bookingId, data: { paymentId: payment.id, amountCents: input.amountCents, reason: input.reason } }, req, t);
-  return refund;
 }
 
 /**

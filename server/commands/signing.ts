@@ -44,8 +44,18 @@ async function mailLink(request: SigningRequest, token: string, document: Docume
   );
 }
 
-/** Creates a signing link for a current rental agreement; any pending link of the booking is replaced. */
+/** Creates a signing link for a current rental agreement and e-mails it; any pending link of the booking is replaced. */
 export async function createSigningRequest(actor: User, document: Document, to: string, req: Request, transaction: Transaction) {
+  const { request, token, organization } = await openSigningLink(actor, document, to, req, transaction);
+  await mailLink(request, token, document, organization, transaction);
+  return request;
+}
+
+/**
+ * A fresh signing link for the agreement without e-mailing it: the customer, signed in to their
+ * own pages, is sent straight to it. Any pending link of the booking is replaced.
+ */
+export async function openSigningLink(actor: User, document: Document, to: string, req: Request | null, transaction: Transaction) {
   await Document.findByPk(document.id, { transaction, lock: transaction.LOCK.UPDATE });
   const organization = await ensureCompanyCertificate(actor.organizationId, transaction);
   const pending = await SigningRequest.findAll({ where: { bookingId: document.bookingId, status: 'pending' }, transaction, lock: transaction.LOCK.UPDATE });
@@ -63,9 +73,8 @@ export async function createSigningRequest(actor: User, document: Document, to: 
     { transaction },
   );
   await recordEvent(request, 'sent', req, transaction, to);
-  await mailLink(request, token, document, organization, transaction);
   await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'signing.requested', subjectType: 'booking', subjectId: document.bookingId, data: { documentId: document.id, number: document.number, to } }, req, transaction);
-  return request;
+  return { request, token, organization };
 }
 
 export async function voidSigningRequest(actor: User, request: SigningRequest, req: Request, transaction: Transaction) {

@@ -1,4 +1,5 @@
 import { getBoss } from '../services/jobs';
+import { registerCardPayments } from './cardPayments';
 import { registerRecognizeDeposits } from './recognizeDeposits';
 import { registerReminders } from './reminders';
 import { registerSendDocument } from './sendDocument';
@@ -11,5 +12,6 @@ export async function startWorkers() {
   await registerSendDocument(boss);
   await registerRecognizeDeposits(boss);
   await registerReminders(boss);
+  await registerCardPayments(boss);
   return boss;
 }

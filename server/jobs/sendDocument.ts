@@ -3,7 +3,10 @@ import { audit } from '../commands/audit';
 import { renderDocumentEmail, type DocumentValues } from '../documents';
 import { withTransaction } from '../db';
 import { logger } from '../logger';
-import { Document, DocumentSend, Organization } from '../models';
+import { env } from '../env';
+import { Document, DocumentSend, Invoice, Organization } from '../models';
+import { payLinkUrl } from '../services/payLinks';
+import { cardPaymentsEnabled } from '../services/stripe';
 import { templateNameFor, templateSource } from '../services/documents';
 import { deliverMail, renderMail } from '../services/mailer';
 import { WORKERS_PER_QUEUE } from './sendMail';
@@ -20,6 +23,20 @@ async function markSend(send: DocumentSend, changes: Partial<Pick<DocumentSend, 
       );
     }
   });
+}
+
+/**
+ * The link an e-mail carries: an invoice with something to pay gets its pay link; receipts and
+ * credit notes point to the customer's own pages for that booking.
+ */
+async function linkFor(document: Document): Promise<string> {
+  if (document.kind === 'invoice') {
+    const invoice = await Invoice.findOne({ where: { documentId: document.id } });
+    const open = invoice && ['open', 'partly_paid'].includes(invoice.status) && invoice.totalCents - invoice.paidCents - invoice.creditedCents > 0;
+    return open && cardPaymentsEnabled() ? payLinkUrl(invoice.id) : '';
+  }
+  if (document.kind === 'receipt' || document.kind === 'credit_note') return `${env.APP_URL}/portal/sign-in?next=${encodeURIComponent(`/portal/bookings/${document.bookingId}`)}`;
+  return '';
 }
 
 /** E-mails an issued document with its stored PDF attached; retried by pg-boss, its state kept on the send. */
@@ -39,7 +56,7 @@ async function sendOne([job]: PgBoss.JobWithMetadata<{ sendId: string }>[]) {
     const mail =
       document.kind === 'signed_agreement'
         ? renderMail('signed-agreement', { customerName: values.customer.name, companyName: organization.name, number: document.number, reference: values.booking.reference, sha256: document.sha256 })
-        : renderDocumentEmail((await templateSource(send.organizationId, templateNameFor(document.kind, true))).source, values);
+        : renderDocumentEmail((await templateSource(send.organizationId, templateNameFor(document.kind, true))).source, values, { link: await linkFor(document) });
     await deliverMail({
       to: send.to,
       ...mail,

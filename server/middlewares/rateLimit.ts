@@ -63,3 +63,17 @@ export async function consumePasswordReset(req: Request, email: string) {
     throw r;
   }
 }
+
+/** Customer sign-in links: 5 an hour per e-mail, 20 an hour per address. */
+const portalLinkByEmail = limiter('portal_link_email', 5, 60 * 60);
+const portalLinkByIp = limiter('portal_link_ip', 20, 60 * 60);
+
+/** Counts a customer sign-in link request; a 429 once over the limit, whether the e-mail is known or not. */
+export async function consumePortalLink(req: Request, email: string) {
+  try {
+    await Promise.all([portalLinkByEmail.consume(email), portalLinkByIp.consume(ip(req))]);
+  } catch (r) {
+    if (r instanceof RateLimiterRes) throw tooMany(r);
+    throw r;
+  }
+}

@@ -10,6 +10,9 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare method: ReceiptMethod;
   /** The part of an overpayment kept as the customer's credit. */
   declare creditCents: CreationOptional<number>;
+  /** Card payments: the processor's payment intent (unique: a card payment is recorded once) and charge. */
+  declare stripePaymentIntentId: CreationOptional<string | null>;
+  declare stripeChargeId: CreationOptional<string | null>;
   declare amountCents: number;
   declare reference: CreationOptional<string>;
   declare receivedAt: Date;
@@ -27,6 +30,8 @@ Payment.init(
     customerId: { type: DataTypes.UUID, allowNull: false },
     method: { type: DataTypes.ENUM(...RECEIPT_METHODS), allowNull: false },
     creditCents: { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 },
+    stripePaymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
+    stripeChargeId: { type: DataTypes.STRING(255), allowNull: true },
     amountCents: { type: DataTypes.BIGINT, allowNull: false },
     reference: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
     receivedAt: { type: DataTypes.DATE, allowNull: false },

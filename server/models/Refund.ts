@@ -10,6 +10,10 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
   declare amountCents: number;
   declare reason: string;
   declare ledgerEntryId: CreationOptional<string | null>;
+  /** Card refunds wait for the processor's confirmation; others succeed at once. */
+  declare status: CreationOptional<'pending' | 'succeeded' | 'failed'>;
+  declare stripeRefundId: CreationOptional<string | null>;
+  declare failure: CreationOptional<string | null>;
   declare createdById: string | null;
   declare createdAt: CreationOptional<Date>;
 }
@@ -23,6 +27,9 @@ Refund.init(
     amountCents: { type: DataTypes.BIGINT, allowNull: false },
     reason: { type: DataTypes.STRING(500), allowNull: false },
     ledgerEntryId: { type: DataTypes.UUID, allowNull: true },
+    status: { type: DataTypes.ENUM('pending', 'succeeded', 'failed'), allowNull: false, defaultValue: 'succeeded' },
+    stripeRefundId: { type: DataTypes.STRING(255), allowNull: true },
+    failure: { type: DataTypes.STRING(500), allowNull: true },
     createdById: { type: DataTypes.UUID, allowNull: true },
     createdAt: DataTypes.DATE,
   },

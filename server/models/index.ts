@@ -2,6 +2,8 @@ import { Account } from './Account';
 import { AuditLog } from './AuditLog';
 import { AuthToken } from './AuthToken';
 import { Booking } from './Booking';
+import { CardCheckout, StripeEvent } from './CardCheckout';
+import { CustomerSession, CustomerSignInToken } from './CustomerSession';
 import { BookingCrew } from './BookingCrew';
 import { BookingLine } from './BookingLine';
 import { CalendarFeed } from './CalendarFeed';
@@ -49,6 +51,7 @@ ReturnCheck.hasMany(ReturnCheckLine, { foreignKey: 'returnCheckId', as: 'lines' 
 export {
   BookingCrew, CalendarFeed, FieldPhoto, ReturnCheck, ReturnCheckLine, SiteCheck,
   Invoice, Payment, PaymentAllocation, Refund, SecurityDepositMove,
+  CardCheckout, StripeEvent, CustomerSession, CustomerSignInToken,
   Account, AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, JournalEntry, JournalLine,
   Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,
 };

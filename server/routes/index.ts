@@ -9,6 +9,7 @@ import { invoicesRouter } from './invoices';
 import { signingRouter } from './signing';
 import { itemsRouter } from './items';
 import { planningRouter } from './planning';
+import { portalRouter } from './portal';
 import { devRouter } from './dev';
 import { organizationRouter } from './organization';
 import { usersRouter } from './users';
@@ -22,6 +23,7 @@ export function apiRouter() {
   api.use('/', documentsRouter);
   api.use('/', signingRouter);
   api.use('/', invoicesRouter);
+  api.use('/', portalRouter);
   api.use('/organization', organizationRouter);
   api.use('/items', itemsRouter);
   api.use('/customers', customersRouter);

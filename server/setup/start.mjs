@@ -9,8 +9,12 @@ const pg = startCluster({ name: 'pg', port: pgPort });
 const port = Number(process.env.PORT ?? 3000);
 const smtpPort = Number(process.env.MAIL_SINK_SMTP_PORT ?? 2525);
 const sinkHttpPort = Number(process.env.MAIL_SINK_HTTP_PORT ?? 2526);
+const cardPort = Number(process.env.CARD_FAKE_PORT ?? 2527);
 
-await assertPortsFree({ 'the app, PORT': port, 'the mail sink, MAIL_SINK_SMTP_PORT': smtpPort, 'the mail sink, MAIL_SINK_HTTP_PORT': sinkHttpPort });
+await assertPortsFree({
+  'the app, PORT': port, 'the mail sink, MAIL_SINK_SMTP_PORT': smtpPort, 'the mail sink, MAIL_SINK_HTTP_PORT': sinkHttpPort,
+  ...(process.env.STRIPE_API_URL ? {} : { 'the card-payment fake, CARD_FAKE_PORT': cardPort }),
+});
 
 const env = {
   ...process.env,
@@ -25,6 +29,12 @@ const env = {
   MAIL_SINK_SMTP_PORT: String(smtpPort),
   MAIL_SINK_HTTP_PORT: String(sinkHttpPort),
   FAKES: process.env.FAKES ?? 'on',
+  // Card payments go to the local fake on loopback unless real settings are given.
+  CARD_FAKE_PORT: String(cardPort),
+  STRIPE_SECRET_KEY: process.env.STRIPE_SECRET_KEY ?? 'sk_test_guyline_local',
+  STRIPE_API_URL: process.env.STRIPE_API_URL ?? `http://127.0.0.1:${cardPort}`,
+  STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET ?? `whsec_${localSecret('card-webhook').slice(0, 32)}`,
+  STRIPE_WEBHOOK_URL: process.env.STRIPE_WEBHOOK_URL ?? `http://127.0.0.1:${port}/api/webhooks/stripe`,
 };
 
 const children = [];

@@ -1,0 +1,315 @@
+/**
+ * The customer's own pages (no password: an e-mailed one-time link), pay links from invoice
+ * e-mails, and card checkouts. A customer sees a booking only when the booking's customer record
+ * has their e-mail address; anything else is a 404, as if it did not exist.
+ */
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import { col, fn, Op, where as sqlWhere } from 'sequelize';
+import { z } from 'zod';
+import { dateInZone } from '../../../shared/dates';
+import { IdParams } from '../../../shared/schemas/common';
+import {
+  CheckoutRequest, PortalSessionRequest, PortalSignInRequest, type CheckoutResponse, type CheckoutState, type PayLink, type PortalBooking,
+  type PortalBookingSummary, type PortalCompany, type PortalInvoice, type PortalMe,
+} from '../../../shared/schemas/portal';
+import { startCheckout, systemActor } from '../../commands/cardPayments';
+import { openSigningLink } from '../../commands/signing';
+import { withTransaction } from '../../db';
+import { env } from '../../env';
+import { HttpError, notFound, unauthenticated } from '../../errors';
+import { securityDepositHeldCents } from '../../ledger/balances';
+import { auth, authenticate } from '../../middlewares/authenticate';
+import { consumePortalLink } from '../../middlewares/rateLimit';
+import { parsed, validate } from '../../middlewares/validate';
+import {
+  Booking, BookingLine, CardCheckout, Customer, CustomerSession, CustomerSignInToken, Document, Invoice, Organization, Payment, PaymentAllocation, SigningRequest,
+} from '../../models';
+import { authorize, sameOrganization } from '../../policies';
+import { clearCustomerSessionCookie, readCustomerSession, startCustomerSession } from '../../services/customerSessions';
+import { queueMail } from '../../services/mailer';
+import { invoiceOfPayLink, payLinkToken } from '../../services/payLinks';
+import { readFile } from '../../services/storage';
+import { cardPaymentsEnabled } from '../../services/stripe';
+import { hashToken, newToken } from '../../services/tokens';
+
+export const portalRouter = Router();
+
+const SIGN_IN_MINUTES = 15;
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    customer?: CustomerSession;
+  }
+}
+
+async function customerOnly(req: Request, _res: Response, next: NextFunction) {
+  const session = await readCustomerSession(req);
+  if (!session) return next(unauthenticated('Sign in to see your rentals.'));
+  req.customer = session;
+  next();
+}
+
+const sameEmail = (email: string) => sqlWhere(fn('lower', col('email')), email.toLowerCase());
+
+/** The customer records (one per company) that carry this e-mail address. */
+async function customersOf(email: string) {
+  return Customer.findAll({ where: sqlWhere(fn('lower', col('email')), email.toLowerCase()), attributes: ['id', 'organizationId', 'name', 'email'] });
+}
+
+/** A booking of this customer, or a 404 (never a 403: another customer's booking does not exist for them). */
+async function ownBooking(email: string, bookingId: string) {
+  const booking = await Booking.findByPk(bookingId, { include: [{ model: Customer, as: 'customer' }, { model: BookingLine, as: 'lines' }] });
+  if (!booking || booking.status === 'draft' || !booking.customer?.email || booking.customer.email.toLowerCase() !== email.toLowerCase()) throw notFound('That booking was not found.');
+  return booking as Booking & { customer: Customer; lines: BookingLine[] };
+}
+
+function companyOf(o: Organization): PortalCompany {
+  const address = [o.addressLine1, o.addressLine2, [o.city, o.region].filter(Boolean).join(', '), o.postalCode].filter(Boolean).join(', ');
+  return { id: o.id, name: o.name, email: o.email, phone: o.phone, address };
+}
+
+const siteAddress = (b: Booking) => [b.siteLine1, b.siteLine2, [b.siteCity, b.siteRegion].filter(Boolean).join(', '), b.sitePostalCode].filter(Boolean).join(', ');
+
+function portalInvoice(i: Invoice, today: string): PortalInvoice {
+  const balance = i.status === 'void' ? 0 : i.totalCents - i.paidCents - i.creditedCents;
+  const open = ['open', 'partly_paid'].includes(i.status);
+  return {
+    id: i.id, number: i.number ?? '', kind: i.kind, status: i.status, issueDate: i.issueDate ?? '', dueDate: i.dueDate ?? null,
+    overdue: open && !!i.dueDate && i.dueDate < today, totalCents: i.totalCents, paidCents: i.paidCents, creditedCents: i.creditedCents,
+    balanceCents: balance, documentId: i.documentId ?? null, canPay: open && balance >= 50 && cardPaymentsEnabled(),
+  };
+}
+
+/** Issued invoices only: drafts are the office's work in progress. Credit notes are listed with them. */
+const issuedInvoicesOf = (bookingId: string) =>
+  Invoice.findAll({ where: { bookingId, status: { [Op.ne]: 'draft' } }, order: [['issueDate', 'ASC'], ['createdAt', 'ASC']] });
+
+function summary(b: Booking, o: Organization, invoices: Invoice[], awaitingSignature: boolean): PortalBookingSummary {
+  const balance = invoices.filter((i) => i.kind !== 'credit_note' && ['open', 'partly_paid'].includes(i.status)).reduce((s, i) => s + i.totalCents - i.paidCents - i.creditedCents, 0);
+  return {
+    id: b.id, reference: b.reference, status: b.status, eventStart: b.eventStart.toISOString(), eventEnd: b.eventEnd.toISOString(), siteAddress: siteAddress(b),
+    company: companyOf(o), balanceCents: balance, currency: o.currency, needsAction: awaitingSignature || balance > 0,
+  };
+}
+
+async function agreementOf(bookingId: string): Promise<PortalBooking['agreement']> {
+  const signed = await Document.findOne({ where: { bookingId, kind: 'signed_agreement', status: 'issued' }, order: [['createdAt', 'DESC']] });
+  if (signed) return { state: 'signed', documentId: signed.id, documentNumber: signed.number, signedAt: (signed.issuedAt ?? signed.createdAt).toISOString() };
+  const current = await Document.findOne({ where: { bookingId, kind: 'rental_agreement', status: 'issued' }, order: [['version', 'DESC']] });
+  if (!current) return { state: 'none' };
+  return { state: 'awaiting', signUrl: `/api/portal/bookings/${bookingId}/sign`, documentNumber: current.number };
+}
+
+// --- signing in ------------------------------------------------------------------------------
+
+portalRouter.post('/portal/sign-in', validate(PortalSignInRequest), async (req, res) => {
+  const { email, next } = parsed<z.output<typeof PortalSignInRequest>>(res);
+  await consumePortalLink(req, email);
+  if ((await Customer.count({ where: sameEmail(email) })) > 0) {
+    const { token, hash } = newToken();
+    await withTransaction(async (t) => {
+      await CustomerSignInToken.create({ email, tokenHash: hash, next: next ?? null, expiresAt: new Date(Date.now() + SIGN_IN_MINUTES * 60_000) }, { transaction: t });
+      await queueMail(email, 'portal-sign-in', { link: `${env.APP_URL}/portal/welcome?token=${token}` }, t);
+    });
+  }
+  // The same answer whether or not the address is known: nobody learns who rents from whom.
+  res.status(202).json({ ok: true });
+});
+
+portalRouter.post('/portal/sessions', validate(PortalSessionRequest), async (req, res) => {
+  const { token } = parsed<{ token: string }>(res);
+  const row = await withTransaction(async (t) => {
+    const found = await CustomerSignInToken.findOne({ where: { tokenHash: hashToken(token) }, transaction: t, lock: t.LOCK.UPDATE });
+    if (!found || found.usedAt || found.expiresAt < new Date()) return null;
+    found.usedAt = new Date();
+    await found.save({ transaction: t });
+    return found;
+  });
+  if (!row) throw new HttpError(410, 'link_expired', 'This sign-in link has expired or was already used. Ask for a new one: it takes a minute.');
+  await startCustomerSession(req, res, row.email);
+  const [first] = await customersOf(row.email);
+  const body: PortalMe = { email: row.email, name: first?.name ?? '', next: row.next ?? null };
+  res.json(body);
+});
+
+portalRouter.get('/portal/me', customerOnly, async (req, res) => {
+  const [first] = await customersOf(req.customer!.email);
+  const body: PortalMe = { email: req.customer!.email, name: first?.name ?? '', next: null };
+  res.json(body);
+});
+
+portalRouter.post('/portal/sign-out', async (req, res) => {
+  const session = await readCustomerSession(req);
+  if (session) await session.update({ revokedAt: new Date() });
+  clearCustomerSessionCookie(res);
+  res.status(204).end();
+});
+
+// --- the customer's bookings -----------------------------------------------------------------
+
+portalRouter.get('/portal/bookings', customerOnly, async (req, res) => {
+  const customers = await customersOf(req.customer!.email);
+  const bookings = await Booking.findAll({
+    where: { customerId: { [Op.in]: customers.map((c) => c.id) }, status: { [Op.ne]: 'draft' } },
+    order: [['eventStart', 'DESC']],
+    limit: 200,
+  });
+  const organizations = new Map((await Organization.findAll({ where: { id: { [Op.in]: [...new Set(bookings.map((b) => b.organizationId))] } } })).map((o) => [o.id, o]));
+  const data: PortalBookingSummary[] = [];
+  for (const b of bookings) {
+    const invoices = await issuedInvoicesOf(b.id);
+    const agreement = await agreementOf(b.id);
+    data.push(summary(b, organizations.get(b.organizationId)!, invoices, agreement.state === 'awaiting'));
+  }
+  res.json({ data, total: data.length });
+});
+
+portalRouter.get('/portal/bookings/:id', customerOnly, validate(IdParams, 'params'), async (req, res) => {
+  const booking = await ownBooking(req.customer!.email, parsed<{ id: string }>(res, 'params').id);
+  const organization = (await Organization.findByPk(booking.organizationId))!;
+  const invoices = await issuedInvoicesOf(booking.id);
+  const today = dateInZone(new Date(), organization.timeZone);
+  const agreement = await agreementOf(booking.id);
+  const receipts = await Document.findAll({ where: { bookingId: booking.id, kind: 'receipt', status: 'issued' }, order: [['createdAt', 'ASC']] });
+  const rows = invoices.map((i) => portalInvoice(i, today));
+  const body: PortalBooking = {
+    ...summary(booking, organization, invoices, agreement.state === 'awaiting'),
+    timeZone: organization.timeZone,
+    deliveryWindow: { start: booking.deliveryStart.toISOString(), end: booking.deliveryEnd.toISOString() },
+    pickupWindow: { start: booking.pickupStart.toISOString(), end: booking.pickupEnd.toISOString() },
+    guestCount: booking.guestCount,
+    lines: [...booking.lines].sort((a, b) => a.position - b.position).map((l) => ({ description: l.description, quantity: l.quantity })),
+    agreement,
+    invoices: rows,
+    receipts: receipts.map((d) => ({ documentId: d.id, number: d.number, issuedAt: (d.issuedAt ?? d.createdAt).toISOString() })),
+    dueNowCents: rows.filter((i) => i.kind !== 'credit_note' && ['open', 'partly_paid'].includes(i.status)).reduce((s, i) => s + i.balanceCents, 0),
+    securityDepositHeldCents: await securityDepositHeldCents(booking.id),
+  };
+  res.json(body);
+});
+
+/** "Read and sign": a fresh signing link for the current agreement, straight to the signing page. */
+portalRouter.get('/portal/bookings/:id/sign', customerOnly, validate(IdParams, 'params'), async (req, res) => {
+  const booking = await ownBooking(req.customer!.email, parsed<{ id: string }>(res, 'params').id);
+  const current = await Document.findOne({ where: { bookingId: booking.id, kind: 'rental_agreement', status: 'issued' }, order: [['version', 'DESC']] });
+  if (!current) throw notFound('There is no agreement to sign yet.');
+  const signed = await SigningRequest.findOne({ where: { documentId: current.id, status: 'signed' } });
+  if (signed) return res.redirect(303, `/portal/bookings/${booking.id}`);
+  const token = await withTransaction(async (t) => (await openSigningLink(systemActor(booking.organizationId), current, req.customer!.email, req, t)).token);
+  res.redirect(303, `/sign/${token}`);
+});
+
+/** A document of the customer's own booking: receipts, invoices, credit notes and the agreements. */
+async function sendPdf(res: Response, doc: Document) {
+  const file = await readFile(doc.organizationId, doc.fileId);
+  if (!file) throw notFound('That document was not found.');
+  res.setHeader('Content-Type', 'application/pdf');
+  res.setHeader('Content-Disposition', `attachment; filename="${doc.number}.pdf"`);
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Cache-Control', 'private, no-store');
+  res.send(file.data);
+}
+
+portalRouter.get('/portal/documents/:id/pdf', customerOnly, validate(IdParams, 'params'), async (req, res) => {
+  const doc = await Document.findByPk(parsed<{ id: string }>(res, 'params').id);
+  if (!doc || doc.status === 'void') throw notFound('That document was not found.');
+  await ownBooking(req.customer!.email, doc.bookingId);
+  await sendPdf(res, doc);
+});
+
+// --- card checkouts --------------------------------------------------------------------------
+
+/**
+ * POST /api/invoices/:id/checkout: the office (to hand a customer the payment page) or the
+ * invoice's own customer, signed in to their pages.
+ */
+portalRouter.post('/invoices/:id/checkout', validate(IdParams, 'params'), validate(CheckoutRequest), async (req, res) => {
+  const id = parsed<{ id: string }>(res, 'params').id;
+  const { amountCents } = parsed<{ amountCents?: number }>(res);
+  const customer = await readCustomerSession(req);
+  let checkout: CardCheckout;
+  if (customer) {
+    const invoice = await Invoice.findByPk(id);
+    if (!invoice) throw notFound('That invoice was not found.');
+    const booking = await ownBooking(customer.email, invoice.bookingId);
+    checkout = await startCheckout({ invoiceId: invoice.id, organizationId: booking.organizationId, amountCents, startedBy: 'customer', returnBase: `${env.APP_URL}/portal/checkouts` });
+  } else {
+    await new Promise<void>((resolve, reject) => authenticate(req, res, (err?: unknown) => (err ? reject(err) : resolve())));
+    const { user } = auth(req);
+    const invoice = sameOrganization(user, await Invoice.findByPk(id), 'That invoice');
+    authorize(user, 'invoice', 'recordPayment', invoice);
+    checkout = await startCheckout({ invoiceId: invoice.id, organizationId: user.organizationId, amountCents, startedBy: 'staff', returnBase: `${env.APP_URL}/pay/${payLinkToken(invoice.id)}/checkouts` });
+  }
+  const body: CheckoutResponse = { url: checkout.url!, checkoutId: checkout.id };
+  res.status(201).json(body);
+});
+
+async function checkoutState(checkout: CardCheckout): Promise<CheckoutState> {
+  const invoice = (await Invoice.findByPk(checkout.invoiceId))!;
+  const payment = checkout.paymentId ? await Payment.findByPk(checkout.paymentId) : null;
+  return {
+    id: checkout.id, status: checkout.status, amountCents: checkout.amountCents, currency: checkout.currency, invoiceId: invoice.id, invoiceNumber: invoice.number ?? '',
+    bookingId: checkout.bookingId, message: checkout.message ?? null, receiptDocumentId: payment?.receiptDocumentId ?? null,
+  };
+}
+
+portalRouter.get('/portal/checkouts/:id', customerOnly, validate(IdParams, 'params'), async (req, res) => {
+  const checkout = await CardCheckout.findByPk(parsed<{ id: string }>(res, 'params').id);
+  if (!checkout) throw notFound('That payment was not found.');
+  await ownBooking(req.customer!.email, checkout.bookingId);
+  res.json(await checkoutState(checkout));
+});
+
+// --- pay links (from invoice e-mails; no sign-in) ----------------------------------------------
+
+const PayParams = z.object({ token: z.string().min(10).max(120) });
+const PayCheckoutParams = PayParams.extend({ checkoutId: z.uuid() });
+const PayDocumentParams = PayParams.extend({ documentId: z.uuid() });
+
+async function payLinkInvoice(token: string) {
+  const invoiceId = invoiceOfPayLink(token);
+  const invoice = invoiceId ? await Invoice.findByPk(invoiceId) : null;
+  if (!invoice || invoice.status === 'draft' || invoice.kind === 'credit_note') throw notFound('This payment link is not valid. Sign in to see your rentals instead.');
+  return invoice;
+}
+
+portalRouter.get('/pay/:token', validate(PayParams, 'params'), async (_req, res) => {
+  const invoice = await payLinkInvoice(parsed<{ token: string }>(res, 'params').token);
+  const booking = (await Booking.findByPk(invoice.bookingId, { include: [{ model: Customer, as: 'customer' }] })) as Booking & { customer: Customer };
+  const organization = (await Organization.findByPk(invoice.organizationId))!;
+  const body: PayLink = {
+    invoice: portalInvoice(invoice, dateInZone(new Date(), organization.timeZone)),
+    bookingReference: booking.reference, eventStart: booking.eventStart.toISOString(), customerName: booking.customer.name,
+    company: companyOf(organization), currency: organization.currency, timeZone: organization.timeZone,
+  };
+  res.json(body);
+});
+
+portalRouter.post('/pay/:token/checkout', validate(PayParams, 'params'), validate(CheckoutRequest), async (_req, res) => {
+  const { token } = parsed<{ token: string }>(res, 'params');
+  const invoice = await payLinkInvoice(token);
+  const checkout = await startCheckout({
+    invoiceId: invoice.id, organizationId: invoice.organizationId, amountCents: parsed<{ amountCents?: number }>(res).amountCents, startedBy: 'link', returnBase: `${env.APP_URL}/pay/${token}/checkouts`,
+  });
+  const body: CheckoutResponse = { url: checkout.url!, checkoutId: checkout.id };
+  res.status(201).json(body);
+});
+
+portalRouter.get('/pay/:token/checkouts/:checkoutId', validate(PayCheckoutParams, 'params'), async (_req, res) => {
+  const { token, checkoutId } = parsed<{ token: string; checkoutId: string }>(res, 'params');
+  const invoice = await payLinkInvoice(token);
+  const checkout = await CardCheckout.findOne({ where: { id: checkoutId, invoiceId: invoice.id } });
+  if (!checkout) throw notFound('That payment was not found.');
+  res.json(await checkoutState(checkout));
+});
+
+/** The invoice's own PDF and the receipts of payments on it. */
+portalRouter.get('/pay/:token/documents/:documentId/pdf', validate(PayDocumentParams, 'params'), async (_req, res) => {
+  const { token, documentId } = parsed<{ token: string; documentId: string }>(res, 'params');
+  const invoice = await payLinkInvoice(token);
+  const allocations = await PaymentAllocation.findAll({ where: { invoiceId: invoice.id }, attributes: ['paymentId'] });
+  const payments = await Payment.findAll({ where: { id: { [Op.in]: allocations.map((a) => a.paymentId) } }, attributes: ['receiptDocumentId'] });
+  const allowed = new Set([invoice.documentId, ...payments.map((p) => p.receiptDocumentId)].filter(Boolean));
+  if (!allowed.has(documentId)) throw notFound('That document was not found.');
+  await sendPdf(res, (await Document.findByPk(documentId))!);
+});
