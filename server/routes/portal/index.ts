@@ -59,8 +59,15 @@ async function customersOf(email: string) {
 /** A booking of this customer, or a 404 (never a 403: another customer's booking does not exist for them). */
 async function ownBooking(email: string, bookingId: string) {
   const booking = await Booking.findByPk(bookingId, { include: [{ model: Customer, as: 'customer' }, { model: BookingLine, as: 'lines' }] });
-  if (!booking || booking.status === 'draft' || !booking.customer?.email || booking.customer.email.toLowerCase() !== email.toLowerCase()) throw notFound('That booking was not found.');
+  if (!booking || !booking.customer?.email || booking.customer.email.toLowerCase() !== email.toLowerCase() || !(await shownToCustomer(booking))) {
+    throw notFound('That booking was not found.');
+  }
   return booking as Booking & { customer: Customer; lines: BookingLine[] };
+}
+
+/** A draft is the office's work in progress: the customer sees it once something was sent (a document issued). */
+async function shownToCustomer(booking: Booking) {
+  return booking.status !== 'draft' || (await Document.count({ where: { bookingId: booking.id } })) > 0;
 }
 
 function companyOf(o: Organization): PortalCompany {
@@ -149,11 +156,9 @@ portalRouter.post('/portal/sign-out', async (req, res) => {
 
 portalRouter.get('/portal/bookings', customerOnly, async (req, res) => {
   const customers = await customersOf(req.customer!.email);
-  const bookings = await Booking.findAll({
-    where: { customerId: { [Op.in]: customers.map((c) => c.id) }, status: { [Op.ne]: 'draft' } },
-    order: [['eventStart', 'DESC']],
-    limit: 200,
-  });
+  const all = await Booking.findAll({ where: { customerId: { [Op.in]: customers.map((c) => c.id) } }, order: [['eventStart', 'DESC']], limit: 200 });
+  const bookings: Booking[] = [];
+  for (const b of all) if (await shownToCustomer(b)) bookings.push(b);
   const organizations = new Map((await Organization.findAll({ where: { id: { [Op.in]: [...new Set(bookings.map((b) => b.organizationId))] } } })).map((o) => [o.id, o]));
   const data: PortalBookingSummary[] = [];
   for (const b of bookings) {
