@@ -1,6 +1,8 @@
 import type { InvoiceRow, PaymentRow } from '../../shared/schemas/invoices';
 import type { Booking, Customer, Invoice, Payment, PaymentAllocation, User } from '../models';
 import { can } from '../policies';
+import { payLinkUrl } from '../services/payLinks';
+import { cardPaymentsEnabled } from '../services/stripe';
 
 export function presentInvoice(
   invoice: Invoice,
@@ -32,6 +34,7 @@ export function presentInvoice(
     voidReason: invoice.voidReason ?? null,
     creditsInvoice: invoice.creditsInvoiceId ? { id: invoice.creditsInvoiceId, number: extra.creditsInvoiceNumber ?? null } : null,
     reason: invoice.reason ?? null,
+    payUrl: balance > 0 && ['open', 'partly_paid'].includes(invoice.status) && cardPaymentsEnabled() ? payLinkUrl(invoice.id) : null,
     createdAt: invoice.createdAt.toISOString(),
     can: {
       issue: can(actor, 'invoice', 'issue', invoice),
@@ -44,7 +47,13 @@ export function presentInvoice(
   };
 }
 
-export function presentPayment(payment: Payment, allocations: (PaymentAllocation & { number: string | null })[], recordedBy: string | null, refundedCents = 0): PaymentRow {
+export function presentPayment(
+  payment: Payment,
+  allocations: (PaymentAllocation & { number: string | null })[],
+  recordedBy: string | null,
+  refundedCents = 0,
+  pendingRefundCents = 0,
+): PaymentRow {
   return {
     id: payment.id,
     bookingId: payment.bookingId,
@@ -57,5 +66,6 @@ export function presentPayment(payment: Payment, allocations: (PaymentAllocation
     receiptDocumentId: payment.receiptDocumentId ?? null,
     recordedBy,
     refundedCents,
+    pendingRefundCents,
   };
 }

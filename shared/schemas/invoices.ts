@@ -59,6 +59,8 @@ export interface InvoiceRow {
   /** On a credit note: the invoice it lowers, and why. */
   creditsInvoice: { id: string; number: string | null } | null;
   reason: string | null;
+  /** The customer's pay link (card payment, no sign-in) while something is due and card payments are set up. */
+  payUrl: string | null;
   createdAt: string;
   can: { issue: boolean; void: boolean; recordPayment: boolean; creditNote: boolean; applyCredit: boolean };
 }
@@ -202,8 +204,10 @@ export interface PaymentRow {
   allocations: { invoiceId: string; invoiceNumber: string | null; amountCents: number }[];
   receiptDocumentId: string | null;
   recordedBy: string | null;
-  /** Refunded so far; at most amountCents - refundedCents can still go back. */
+  /** Refunded so far (confirmed); at most amountCents - creditCents - refundedCents - pendingRefundCents can still go back. */
   refundedCents: number;
+  /** Card refunds asked for and not yet confirmed by the card processor. */
+  pendingRefundCents: number;
 }
 
 export interface LedgerEntryRow {

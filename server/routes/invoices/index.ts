@@ -167,8 +167,9 @@ async function paymentRow(payment: Payment) {
   const allocations = await PaymentAllocation.findAll({ where: { paymentId: payment.id } });
   const numbers = new Map((await Invoice.findAll({ where: { id: { [Op.in]: allocations.map((a) => a.invoiceId) } }, attributes: ['id', 'number'] })).map((i) => [i.id, i.number ?? null]));
   const by = payment.recordedById ? await User.findByPk(payment.recordedById, { attributes: ['name'] }) : null;
-  const refunded = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id } })) ?? 0);
-  return presentPayment(payment, allocations.map((a) => Object.assign(a, { number: numbers.get(a.invoiceId) ?? null })), by?.name ?? null, refunded);
+  const refunded = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id, status: 'succeeded' } })) ?? 0);
+  const pending = Number((await Refund.sum('amountCents', { where: { paymentId: payment.id, status: 'pending' } })) ?? 0);
+  return presentPayment(payment, allocations.map((a) => Object.assign(a, { number: numbers.get(a.invoiceId) ?? null })), by?.name ?? null, refunded, pending);
 }
 
 invoicesRouter.get('/bookings/:id/payments', authenticate, validate(IdParams, 'params'), async (req, res) => {
@@ -218,7 +219,7 @@ invoicesRouter.post('/payments/:id/refunds', authenticate, validate(IdParams, 'p
   // Refunds are the owner's call.
   if (user.role !== 'owner') throw forbidden('Only the owner gives refunds.');
   const refund = await withTransaction((t) => refundPayment(user, payment.id, parsed<{ amountCents: number; reason: string }>(res), req, t));
-  res.status(201).json({ id: refund.id, paymentId: refund.paymentId, amountCents: refund.amountCents, reason: refund.reason, createdAt: refund.createdAt.toISOString() });
+  res.status(201).json({ id: refund.id, paymentId: refund.paymentId, amountCents: refund.amountCents, reason: refund.reason, status: refund.status ?? 'succeeded', createdAt: refund.createdAt.toISOString() });
 });
 
 invoicesRouter.post('/bookings/:id/security-deposit', authenticate, validate(IdParams, 'params'), validate(SecurityDepositRequest), async (req, res) => {

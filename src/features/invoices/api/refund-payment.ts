@@ -8,6 +8,8 @@ export interface RefundRow {
   paymentId: string;
   amountCents: number;
   reason: string;
+  /** A card refund is pending until the card processor confirms it. */
+  status: 'pending' | 'succeeded' | 'failed';
   createdAt: string;
 }
 

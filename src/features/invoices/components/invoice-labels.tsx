@@ -30,7 +30,8 @@ export const isTransfer = (method: ReceiptMethod) => method === 'security_deposi
  * What can still go back of a payment: the part kept as account credit is not refunded from the
  * payment (the owner pays credit back from the customer's page), nor is what went back before.
  */
-export const refundableCents = (p: Pick<PaymentRow, 'amountCents' | 'creditCents' | 'refundedCents'>) => Math.max(0, p.amountCents - p.creditCents - p.refundedCents);
+export const refundableCents = (p: Pick<PaymentRow, 'amountCents' | 'creditCents' | 'refundedCents' | 'pendingRefundCents'>) =>
+  Math.max(0, p.amountCents - p.creditCents - p.refundedCents - p.pendingRefundCents);
 
 /** Money payments can be refunded; moves from the security deposit or account credit are not money paid in. */
 export const canRefundPayment = (p: PaymentRow) => !isTransfer(p.method) && refundableCents(p) > 0;

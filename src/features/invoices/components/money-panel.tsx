@@ -88,7 +88,7 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
   const [created, setCreated] = useState<InvoiceRow | null>(null);
   const [paid, setPaid] = useState<PaymentRow | null>(null);
   const [refunding, setRefunding] = useState<PaymentRow | null>(null);
-  const [refunded, setRefunded] = useState<{ amountCents: number } | null>(null);
+  const [refunded, setRefunded] = useState<{ amountCents: number; status: 'pending' | 'succeeded' | 'failed' } | null>(null);
   const [charging, setCharging] = useState(false);
   const me = useMe().data;
 
@@ -173,7 +173,14 @@ export function MoneyPanel({ booking, timeZone, currency, canBill, canGiveMoneyB
             {booking.customerEmail}.
           </Alert>
         ) : refunded ? (
-          <Alert tone="success">Refund of {money(refunded.amountCents)} recorded. The invoices it paid are owed again by that much.</Alert>
+          refunded.status === 'pending' ? (
+            <Alert tone="info">
+              Refund of {money(refunded.amountCents)} sent to the card processor. The balances change when it confirms the refund, usually within a minute; the customer
+              gets an e-mail then.
+            </Alert>
+          ) : (
+            <Alert tone="success">Refund of {money(refunded.amountCents)} recorded. The invoices it paid are owed again by that much.</Alert>
+          )
         ) : nothingLeft ? (
           <Alert tone="info">{create.error?.message}</Alert>
         ) : null}

@@ -55,6 +55,9 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
                 {formatMoney(here ? here.amountCents : p.amountCents, currency)}
                 {here && here.amountCents !== p.amountCents ? <span className="block text-xs text-canvas-600">of {formatMoney(p.amountCents, currency)}</span> : null}
                 {p.refundedCents > 0 ? <span className="block text-xs text-canvas-600">{formatMoney(p.refundedCents, currency)} refunded</span> : null}
+                {p.pendingRefundCents > 0 ? (
+                  <span className="block text-xs text-ochre-800">{formatMoney(p.pendingRefundCents, currency)} refund on its way to the card</span>
+                ) : null}
               </Td>
               {invoiceId ? null : (
                 <Td>

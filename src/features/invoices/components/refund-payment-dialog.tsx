@@ -45,8 +45,10 @@ function RefundForm({ payment, currency, timeZone, refundableCents, onDone, onCa
   return (
     <form ref={form.formRef} onSubmit={submit} noValidate aria-label="Refund a payment" className="space-y-4">
       <p className="text-sm text-canvas-700">
-        {PAYMENT_METHOD_LABELS[payment.method] ?? payment.method} of {money(payment.amountCents)}, received {formatZoned(payment.receivedAt, timeZone)}. Give the
-        money back the same way; the invoices it paid are owed again by what you refund.
+        {PAYMENT_METHOD_LABELS[payment.method] ?? payment.method} of {money(payment.amountCents)}, received {formatZoned(payment.receivedAt, timeZone)}.{' '}
+        {payment.method === 'card'
+          ? 'The money goes back to the same card through the card processor; the invoices it paid are owed again once the processor confirms the refund.'
+          : 'Give the money back the same way; the invoices it paid are owed again by what you refund.'}
       </p>
       <FormMessage message={form.formError} />
       <fieldset disabled={refunding.isPending} className="space-y-4">

@@ -24,6 +24,7 @@ import { formatInvoiceDate, InvoiceStatusBadges, invoiceName, invoiceStatusLabel
 import { InvoiceLines } from '@/features/invoices/components/invoice-lines';
 import { PaymentsTable } from '@/features/invoices/components/payments-table';
 import { RecordPaymentDialog } from '@/features/invoices/components/record-payment-dialog';
+import { PayLink } from '@/features/invoices/components/pay-link';
 import { VoidInvoiceDialog } from '@/features/invoices/components/void-invoice-dialog';
 import { useOrganization } from '@/features/organization/api/get-organization';
 import { requireArea } from '../../../guards';
@@ -306,6 +307,11 @@ function InvoicePage({ id }: { id: string }) {
           <SectionCard title="PDF">
             <InvoicePdf invoice={i} />
           </SectionCard>
+          {i.payUrl ? (
+            <SectionCard title="Pay by card">
+              <PayLink url={i.payUrl} number={i.number} />
+            </SectionCard>
+          ) : null}
         </div>
       </div>
 
