@@ -11,7 +11,7 @@ import { CheckoutOutcome, outcomeTitle } from '@/features/portal/components/chec
 import { goToPaymentPage } from '@/features/portal/components/pay-form';
 import { isDeadLink, PayLinkProblem } from '@/features/portal/components/pay-link-problem';
 import { PortalLayout } from '@/features/portal/components/portal-layout';
-import { useConfirmWindow } from '@/features/portal/components/use-confirm-window';
+import { CANCELLED_WAIT_MS, useConfirmWindow } from '@/features/portal/components/use-confirm-window';
 
 export { PortalRouteError as ErrorBoundary } from '@/features/portal/components/portal-route-error';
 
@@ -22,7 +22,9 @@ export default function PayLinkCheckoutRoute() {
   const cancelled = search.get('cancelled') === '1';
   const queryClient = useQueryClient();
   const window_ = useConfirmWindow();
-  const checkout = usePayLinkCheckout(token, checkoutId, cancelled ? 0 : window_.until);
+  // After Cancel nothing is coming, except perhaps the word on a card refused just before: a short look.
+  const [cancelledUntil] = useState(() => Date.now() + CANCELLED_WAIT_MS);
+  const checkout = usePayLinkCheckout(token, checkoutId, cancelled ? cancelledUntil : window_.until);
   const link = usePayLink(token);
   const again = useStartPayLinkCheckout();
   const [leaving, setLeaving] = useState(false);

@@ -12,7 +12,7 @@ import { useStartInvoiceCheckout } from '@/features/portal/api/start-checkout';
 import { CheckoutOutcome, outcomeTitle } from '@/features/portal/components/checkout-outcome';
 import { goToPaymentPage } from '@/features/portal/components/pay-form';
 import { PortalLayout } from '@/features/portal/components/portal-layout';
-import { useConfirmWindow } from '@/features/portal/components/use-confirm-window';
+import { CANCELLED_WAIT_MS, useConfirmWindow } from '@/features/portal/components/use-confirm-window';
 
 export { PortalRouteError as ErrorBoundary } from '@/features/portal/components/portal-route-error';
 
@@ -23,8 +23,9 @@ export default function PortalCheckoutRoute() {
   const cancelled = search.get('cancelled') === '1';
   const queryClient = useQueryClient();
   const window_ = useConfirmWindow();
-  // A cancelled payment needs no waiting: one look says which booking it was for.
-  const checkout = usePortalCheckout(checkoutId, cancelled ? 0 : window_.until);
+  // After Cancel nothing is coming, except perhaps the word on a card refused just before: a short look.
+  const [cancelledUntil] = useState(() => Date.now() + CANCELLED_WAIT_MS);
+  const checkout = usePortalCheckout(checkoutId, cancelled ? cancelledUntil : window_.until);
   const state = checkout.data;
   const booking = usePortalBooking(state?.bookingId ?? '');
   const again = useStartInvoiceCheckout();

@@ -88,8 +88,8 @@ export function CheckoutOutcome(props: CheckoutOutcomeProps) {
     body = (
       <>
         {cancelled ? <p className="text-canvas-800">Nothing was charged.</p> : null}
-        <Alert tone="danger" className={cancelled ? 'mt-3' : undefined} title={cancelled ? 'Your last try was refused' : 'Nothing was charged'}>
-          {state.message ?? 'The card was refused. Try again with another card, or contact your bank.'}
+        <Alert tone={cancelled ? 'warning' : 'danger'} className={cancelled ? 'mt-3' : undefined} title={cancelled ? 'Why the card was refused' : undefined}>
+          {state.message ?? 'The card was refused and nothing was charged. Try again with another card, or contact your bank.'}
         </Alert>
         <p className="mt-3 text-canvas-800">
           The invoice {state.invoiceNumber} is still open: {money(state.amountCents, state.currency)} to pay. You can try again, with this card or another one.

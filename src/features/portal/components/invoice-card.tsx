@@ -33,7 +33,7 @@ export function InvoiceFigures({ invoice, currency, timeZone }: { invoice: Porta
 export function InvoiceStatus({ invoice }: { invoice: PortalInvoice }) {
   const words = INVOICE_STATUS_WORDS[invoice.status] ?? { label: invoice.status, tone: 'neutral' as const };
   return (
-    <span className="inline-flex flex-wrap gap-1">
+    <span className="inline-flex flex-wrap gap-1" data-testid="invoice-status">
       <Badge tone={words.tone}>{invoice.kind === 'credit_note' && invoice.status === 'paid' ? 'Applied' : words.label}</Badge>
       {invoice.overdue && invoice.balanceCents > 0 ? <Badge tone="negative">Overdue</Badge> : null}
     </span>

@@ -16,7 +16,7 @@ export function InvoicesSection({ booking }: { booking: PortalBooking }) {
           <p className="mt-1 text-sm text-canvas-700">
             {booking.balanceCents > 0 ? (
               <>
-                Balance of this booking: <strong className="text-canvas-900 tabular-nums">{money(booking.balanceCents, booking.currency)}</strong>
+                Invoiced and not yet paid: <strong className="text-canvas-900 tabular-nums">{money(booking.balanceCents, booking.currency)}</strong>
                 {booking.dueNowCents > 0 && booking.dueNowCents !== booking.balanceCents ? (
                   <>
                     , of which <strong className="text-canvas-900 tabular-nums">{money(booking.dueNowCents, booking.currency)}</strong> is due now

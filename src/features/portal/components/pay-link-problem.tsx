@@ -16,7 +16,8 @@ export function PayLinkProblem({ error }: { error: unknown }) {
   return (
     <LinkProblem
       title={expired ? 'This pay link has expired' : 'This pay link doesn’t work'}
-      message={isApiError(error) ? error.message : null}
+      // An unknown link gets our own words; an ended one, the server's reason.
+      message={expired && isApiError(error) ? error.message : null}
       advice={
         expired
           ? 'Pay links work for a limited time. Sign in with your e-mail address to see what you owe and pay it there.'

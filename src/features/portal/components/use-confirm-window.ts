@@ -1,6 +1,9 @@
 import { useCallback, useEffect, useState } from 'react';
 import { CONFIRM_WAIT_MS } from '../api/polling';
 
+/** How long a page reached through Cancel listens for a refusal that happened just before. */
+export const CANCELLED_WAIT_MS = 5_000;
+
 /**
  * The time the return page keeps asking for the confirmation: `until` for the poll, `timedOut`
  * to say it is slow, `restart` for "Check again".
