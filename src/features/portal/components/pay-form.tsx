@@ -103,6 +103,8 @@ export function PayForm({ balanceCents, currency, what, companyName, onPay, isPe
               onClick={() => {
                 setPart(false);
                 setAmountError(null);
+                // The button pressed goes away: focus lands on the one that now pays.
+                requestAnimationFrame(() => formRef.current?.querySelector<HTMLButtonElement>('button[type="submit"]')?.focus());
               }}
             >
               Pay the whole balance instead
