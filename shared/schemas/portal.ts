@@ -18,7 +18,10 @@ export const PortalSignInRequest = z.object({
 });
 export type PortalSignInRequest = z.input<typeof PortalSignInRequest>;
 
-/** POST /api/portal/sessions: trades the link's one-time token for a session cookie. */
+/**
+ * POST /api/portal/sessions: trades the link's one-time token for a session cookie; answers
+ * PortalMe (with `next`). 404 `link_unknown`, 410 `link_used` or `link_expired` otherwise.
+ */
 export const PortalSessionRequest = z.object({
   token: z.string({ error: 'This sign-in link is incomplete.' }).min(20, 'This sign-in link is incomplete.').max(200),
 });
@@ -67,12 +70,13 @@ export interface PortalBookingSummary {
   company: PortalCompany;
   balanceCents: number;
   currency: string;
+  /** The company's time zone: dates and windows read on its clock. */
+  timeZone: string;
   /** Something is waiting for the customer: an agreement to sign or an amount due. */
   needsAction: boolean;
 }
 
 export interface PortalBooking extends PortalBookingSummary {
-  timeZone: string;
   deliveryWindow: { start: string; end: string };
   pickupWindow: { start: string; end: string };
   guestCount: number;

@@ -60,7 +60,7 @@ async function customersOf(email: string) {
 async function ownBooking(email: string, bookingId: string) {
   const booking = await Booking.findByPk(bookingId, { include: [{ model: Customer, as: 'customer' }, { model: BookingLine, as: 'lines' }] });
   if (!booking || !booking.customer?.email || booking.customer.email.toLowerCase() !== email.toLowerCase() || !(await shownToCustomer(booking))) {
-    throw notFound('That booking was not found.');
+    throw notFound('That booking');
   }
   return booking as Booking & { customer: Customer; lines: BookingLine[] };
 }
@@ -95,7 +95,7 @@ function summary(b: Booking, o: Organization, invoices: Invoice[], awaitingSigna
   const balance = invoices.filter((i) => i.kind !== 'credit_note' && ['open', 'partly_paid'].includes(i.status)).reduce((s, i) => s + i.totalCents - i.paidCents - i.creditedCents, 0);
   return {
     id: b.id, reference: b.reference, status: b.status, eventStart: b.eventStart.toISOString(), eventEnd: b.eventEnd.toISOString(), siteAddress: siteAddress(b),
-    company: companyOf(o), balanceCents: balance, currency: o.currency, needsAction: awaitingSignature || balance > 0,
+    company: companyOf(o), balanceCents: balance, currency: o.currency, timeZone: o.timeZone, needsAction: awaitingSignature || balance > 0,
   };
 }
 
@@ -127,12 +127,16 @@ portalRouter.post('/portal/sessions', validate(PortalSessionRequest), async (req
   const { token } = parsed<{ token: string }>(res);
   const row = await withTransaction(async (t) => {
     const found = await CustomerSignInToken.findOne({ where: { tokenHash: hashToken(token) }, transaction: t, lock: t.LOCK.UPDATE });
-    if (!found || found.usedAt || found.expiresAt < new Date()) return null;
+    if (!found) return 'unknown' as const;
+    if (found.usedAt) return 'used' as const;
+    if (found.expiresAt < new Date()) return 'expired' as const;
     found.usedAt = new Date();
     await found.save({ transaction: t });
     return found;
   });
-  if (!row) throw new HttpError(410, 'link_expired', 'This sign-in link has expired or was already used. Ask for a new one: it takes a minute.');
+  if (row === 'unknown') throw new HttpError(404, 'link_unknown', 'This sign-in link is not one of ours. Ask for a new one: it takes a minute.');
+  if (row === 'used') throw new HttpError(410, 'link_used', 'This sign-in link was already used: each link works once. Ask for a new one: it takes a minute.');
+  if (row === 'expired') throw new HttpError(410, 'link_expired', 'This sign-in link has expired: links work for 15 minutes. Ask for a new one: it takes a minute.');
   await startCustomerSession(req, res, row.email);
   const [first] = await customersOf(row.email);
   const body: PortalMe = { email: row.email, name: first?.name ?? '', next: row.next ?? null };
@@ -179,7 +183,6 @@ portalRouter.get('/portal/bookings/:id', customerOnly, validate(IdParams, 'param
   const rows = invoices.map((i) => portalInvoice(i, today));
   const body: PortalBooking = {
     ...summary(booking, organization, invoices, agreement.state === 'awaiting'),
-    timeZone: organization.timeZone,
     deliveryWindow: { start: booking.deliveryStart.toISOString(), end: booking.deliveryEnd.toISOString() },
     pickupWindow: { start: booking.pickupStart.toISOString(), end: booking.pickupEnd.toISOString() },
     guestCount: booking.guestCount,
@@ -197,7 +200,7 @@ portalRouter.get('/portal/bookings/:id', customerOnly, validate(IdParams, 'param
 portalRouter.get('/portal/bookings/:id/sign', customerOnly, validate(IdParams, 'params'), async (req, res) => {
   const booking = await ownBooking(req.customer!.email, parsed<{ id: string }>(res, 'params').id);
   const current = await Document.findOne({ where: { bookingId: booking.id, kind: 'rental_agreement', status: 'issued' }, order: [['version', 'DESC']] });
-  if (!current) throw notFound('There is no agreement to sign yet.');
+  if (!current) throw new HttpError(404, 'not_found', 'There is no agreement to sign yet.');
   const signed = await SigningRequest.findOne({ where: { documentId: current.id, status: 'signed' } });
   if (signed) return res.redirect(303, `/portal/bookings/${booking.id}`);
   const token = await withTransaction(async (t) => (await openSigningLink(systemActor(booking.organizationId), current, req.customer!.email, req, t)).token);
@@ -207,7 +210,7 @@ portalRouter.get('/portal/bookings/:id/sign', customerOnly, validate(IdParams, '
 /** A document of the customer's own booking: receipts, invoices, credit notes and the agreements. */
 async function sendPdf(res: Response, doc: Document) {
   const file = await readFile(doc.organizationId, doc.fileId);
-  if (!file) throw notFound('That document was not found.');
+  if (!file) throw notFound('That document');
   res.setHeader('Content-Type', 'application/pdf');
   res.setHeader('Content-Disposition', `attachment; filename="${doc.number}.pdf"`);
   res.setHeader('X-Content-Type-Options', 'nosniff');
@@ -217,7 +220,7 @@ async function sendPdf(res: Response, doc: Document) {
 
 portalRouter.get('/portal/documents/:id/pdf', customerOnly, validate(IdParams, 'params'), async (req, res) => {
   const doc = await Document.findByPk(parsed<{ id: string }>(res, 'params').id);
-  if (!doc || doc.status === 'void') throw notFound('That document was not found.');
+  if (!doc || doc.status === 'void') throw notFound('That document');
   await ownBooking(req.customer!.email, doc.bookingId);
   await sendPdf(res, doc);
 });
@@ -235,7 +238,7 @@ portalRouter.post('/invoices/:id/checkout', validate(IdParams, 'params'), valida
   let checkout: CardCheckout;
   if (customer) {
     const invoice = await Invoice.findByPk(id);
-    if (!invoice) throw notFound('That invoice was not found.');
+    if (!invoice) throw notFound('That invoice');
     const booking = await ownBooking(customer.email, invoice.bookingId);
     checkout = await startCheckout({ invoiceId: invoice.id, organizationId: booking.organizationId, amountCents, startedBy: 'customer', returnBase: `${env.APP_URL}/portal/checkouts` });
   } else {
@@ -260,7 +263,7 @@ async function checkoutState(checkout: CardCheckout): Promise<CheckoutState> {
 
 portalRouter.get('/portal/checkouts/:id', customerOnly, validate(IdParams, 'params'), async (req, res) => {
   const checkout = await CardCheckout.findByPk(parsed<{ id: string }>(res, 'params').id);
-  if (!checkout) throw notFound('That payment was not found.');
+  if (!checkout) throw notFound('That payment');
   await ownBooking(req.customer!.email, checkout.bookingId);
   res.json(await checkoutState(checkout));
 });
@@ -274,7 +277,7 @@ const PayDocumentParams = PayParams.extend({ documentId: z.uuid() });
 async function payLinkInvoice(token: string) {
   const invoiceId = invoiceOfPayLink(token);
   const invoice = invoiceId ? await Invoice.findByPk(invoiceId) : null;
-  if (!invoice || invoice.status === 'draft' || invoice.kind === 'credit_note') throw notFound('This payment link is not valid. Sign in to see your rentals instead.');
+  if (!invoice || invoice.status === 'draft' || invoice.kind === 'credit_note') throw new HttpError(404, 'not_found', 'This payment link is not valid. Sign in to see your rentals instead.');
   return invoice;
 }
 
@@ -304,7 +307,7 @@ portalRouter.get('/pay/:token/checkouts/:checkoutId', validate(PayCheckoutParams
   const { token, checkoutId } = parsed<{ token: string; checkoutId: string }>(res, 'params');
   const invoice = await payLinkInvoice(token);
   const checkout = await CardCheckout.findOne({ where: { id: checkoutId, invoiceId: invoice.id } });
-  if (!checkout) throw notFound('That payment was not found.');
+  if (!checkout) throw notFound('That payment');
   res.json(await checkoutState(checkout));
 });
 
@@ -315,6 +318,6 @@ portalRouter.get('/pay/:token/documents/:documentId/pdf', validate(PayDocumentPa
   const allocations = await PaymentAllocation.findAll({ where: { invoiceId: invoice.id }, attributes: ['paymentId'] });
   const payments = await Payment.findAll({ where: { id: { [Op.in]: allocations.map((a) => a.paymentId) } }, attributes: ['receiptDocumentId'] });
   const allowed = new Set([invoice.documentId, ...payments.map((p) => p.receiptDocumentId)].filter(Boolean));
-  if (!allowed.has(documentId)) throw notFound('That document was not found.');
+  if (!allowed.has(documentId)) throw notFound('That document');
   await sendPdf(res, (await Document.findByPk(documentId))!);
 });

@@ -43,7 +43,9 @@ describe('customer sign-in', () => {
     expect((await anon.get('/api/portal/bookings')).status).toBe(401);
 
     const { client, token } = await customerSession(r.email);
-    expect((await new ApiClient(app).init().then((c) => c.post('/api/portal/sessions', { token }))).status).toBe(410);
+    const reused = await new ApiClient(app).init().then((c) => c.post('/api/portal/sessions', { token }));
+    expect(reused.status).toBe(410);
+    expect(reused.body.error.code).toBe('link_used');
     expect((await client.get('/api/portal/me')).body.email).toBe(r.email);
     await new Promise((res) => setTimeout(res, 300));
     expect(await mailTo(stranger)).toHaveLength(0);
