@@ -9,6 +9,7 @@ import request from 'supertest';
 import Stripe from 'stripe';
 import { describe, expect, inject, it } from 'vitest';
 import { createApp } from '../../../server/app';
+import { signatureHeader } from '../../../server/fakes/stripe';
 import { CardCheckout, Invoice, Payment, Refund, StripeEvent, type User } from '../../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../../factories';
 import { ApiClient, uniqueEmail, waitForMail } from '../../support';
@@ -55,6 +56,14 @@ function event(id: string, type: string, object: Record<string, unknown>) {
 }
 
 describe('the webhook endpoint', () => {
+  it("the card fake signs deliveries exactly as the SDK's own test signer does", () => {
+    const payload = event('evt_cross_check', 'payment_intent.succeeded', { id: 'pi_x', object: 'payment_intent' });
+    const secret = inject('stripeWebhookSecret');
+    for (const timestamp of [1_700_000_000, Math.floor(Date.now() / 1000)]) {
+      expect(signatureHeader(payload, secret, timestamp)).toBe(sdk().webhooks.generateTestHeaderString({ payload, secret, timestamp }));
+    }
+  });
+
   it('accepts what the SDK signs, and refuses a tampered body and a stale timestamp with 400', async () => {
     const payload = event(`evt_sig_${Date.now()}`, 'customer.created', { id: 'cus_x', object: 'customer' });
     expect((await postEvent(payload, signed(payload))).status).toBe(200);
