@@ -5,13 +5,14 @@ import type { User } from '../models';
 import { bookingPolicy } from './booking';
 import { customerPolicy } from './customer';
 import { documentPolicy } from './document';
+import { exportPolicy } from './export';
 import { fieldPolicy } from './field';
 import { invoicePolicy } from './invoice';
 import { itemPolicy } from './item';
 import { organizationPolicy } from './organization';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy, export: exportPolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */
@@ -45,6 +46,7 @@ export function sameOrganization<T extends { organizationId: string } | null>(ac
 export function areasFor(user: User): Area[] {
   const areas: Area[] = ['dashboard', 'bookings', 'customers', 'catalog'];
   if (invoicePolicy.read(user)) areas.push('invoices');
+  if (exportPolicy.run(user)) areas.push('exports');
   if (fieldPolicy.read(user)) areas.push('field');
   if (userPolicy.list(user)) areas.push('users');
   if (user.role === 'owner') areas.push('settings');
