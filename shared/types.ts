@@ -6,7 +6,7 @@ export const USER_STATUSES = ['invited', 'active', 'disabled'] as const;
 export type UserStatus = (typeof USER_STATUSES)[number];
 
 /** Areas of the app a role may open; the server sends these so the client can build its navigation. */
-export const AREAS = ['dashboard', 'field', 'bookings', 'invoices', 'exports', 'customers', 'catalog', 'users', 'settings', 'devInbox'] as const;
+export const AREAS = ['dashboard', 'field', 'bookings', 'invoices', 'exports', 'reports', 'customers', 'catalog', 'users', 'settings', 'devInbox'] as const;
 export type Area = (typeof AREAS)[number];
 
 export const ROLE_LABELS: Record<Role, string> = {

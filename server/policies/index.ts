@@ -10,9 +10,10 @@ import { fieldPolicy } from './field';
 import { invoicePolicy } from './invoice';
 import { itemPolicy } from './item';
 import { organizationPolicy } from './organization';
+import { reportPolicy } from './report';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy, export: exportPolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy, export: exportPolicy, report: reportPolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */
@@ -47,6 +48,7 @@ export function areasFor(user: User): Area[] {
   const areas: Area[] = ['dashboard', 'bookings', 'customers', 'catalog'];
   if (invoicePolicy.read(user)) areas.push('invoices');
   if (exportPolicy.run(user)) areas.push('exports');
+  if (reportPolicy.read(user)) areas.push('reports');
   if (fieldPolicy.read(user)) areas.push('field');
   if (userPolicy.list(user)) areas.push('users');
   if (user.role === 'owner') areas.push('settings');

@@ -68,6 +68,7 @@ export function createAppRouter(queryClient: QueryClient) {
                 { path: paths.app.invoices.path, lazy: () => import('./routes/app/invoices/list').then(c) },
                 { path: paths.app.invoice.path, lazy: () => import('./routes/app/invoices/invoice').then(c) },
                 { path: paths.app.exports.path, lazy: () => import('./routes/app/exports').then(c) },
+                { path: paths.app.reports.path, lazy: () => import('./routes/app/reports').then(c) },
                 { path: paths.app.customers.path, lazy: () => import('./routes/app/customers/list').then(c) },
                 { path: paths.app.customerNew.path, lazy: () => import('./routes/app/customers/new').then(c) },
                 { path: paths.app.customer.path, lazy: () => import('./routes/app/customers/customer').then(c) },

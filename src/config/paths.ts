@@ -61,6 +61,7 @@ export const paths = {
     booking: { path: 'bookings/:id', getHref: (id: string) => `/app/bookings/${encodeURIComponent(id)}` },
     invoices: { path: 'invoices', getHref: () => '/app/invoices' },
     exports: { path: 'exports', getHref: () => '/app/exports' },
+    reports: { path: 'reports', getHref: (tab?: string) => withQuery('/app/reports', { tab }) },
     field: { path: 'field', getHref: () => '/app/field' },
     fieldDay: { path: 'field/days/:date', getHref: (date: string) => `/app/field/days/${encodeURIComponent(date)}` },
     fieldLoadList: { path: 'field/days/:date/load-list', getHref: (date: string) => `/app/field/days/${encodeURIComponent(date)}/load-list` },

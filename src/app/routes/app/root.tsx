@@ -18,6 +18,7 @@ const NAVIGATION: ReadonlyArray<{ area: Area } & ShellNavItem> = [
   { area: 'bookings', label: 'Bookings', to: paths.app.bookings.getHref() },
   { area: 'invoices', label: 'Invoices', to: paths.app.invoices.getHref() },
   { area: 'exports', label: 'Exports', to: paths.app.exports.getHref() },
+  { area: 'reports', label: 'Reports', to: paths.app.reports.getHref() },
   { area: 'customers', label: 'Customers', to: paths.app.customers.getHref() },
   { area: 'catalog', label: 'Catalog', to: paths.app.catalog.getHref() },
   { area: 'users', label: 'Users', to: paths.app.users.getHref() },

@@ -1,0 +1,5 @@
+import { PageHeader } from '@/components/ui/page-header';
+
+export default function ReportsRoute() {
+  return <PageHeader title="Reports" />;
+}
