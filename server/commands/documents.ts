@@ -49,6 +49,8 @@ export async function issueDocument(
       /** The invoice's (or credit note's) own total: what its e-mail and PDF call "the total". */
       total?: string;
     };
+    /** When it is dated (demo data loaded after the fact); now by default. */
+    issuedAt?: Date;
   } = {},
 ) {
   // Locking the booking serializes two people issuing at once: versions stay 1, 2, 3...
@@ -86,7 +88,7 @@ export async function issueDocument(
   }
   // Receipts and credit notes are numbered in sequence on the booking: RCT-B-1001-1, -2...
   const number = extra.invoice ? base : !VERSIONED[kind] ? `${base}-${version}` : version === 1 ? base : `${base}-${version}`;
-  const issuedAt = new Date();
+  const issuedAt = extra.issuedAt ?? new Date();
   // Only roles that see prices may issue documents, so the actor's view of the booking is the priced one.
   const row = presentBooking(booking, actor, organization);
   const values = bookingDocumentValues({

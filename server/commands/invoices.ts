@@ -68,7 +68,7 @@ function linesFor(b: Parts, label: string, what: string): InvoiceLineRow[] {
  * the balance (everything not yet invoiced). Lines are copied, not linked: later edits to the
  * booking do not change an invoice.
  */
-export async function createInvoice(actor: User, bookingId: string, kind: 'deposit' | 'balance', req: Request, t: Transaction) {
+export async function createInvoice(actor: User, bookingId: string, kind: 'deposit' | 'balance', req: Request | null, t: Transaction) {
   const booking = await loadBooking(actor.organizationId, bookingId, t);
   if (!booking) throw new HttpError(404, 'not_found', 'That booking was not found.');
   if (booking.status === 'cancelled') throw conflict('A cancelled booking is not invoiced.', 'cancelled');
@@ -152,13 +152,13 @@ async function nextNumber(organizationId: string, year: number, series: string, 
 }
 
 /** Issues a draft: its number, due date, ledger entry and PDF, all in one transaction. */
-export async function issueInvoice(actor: User, invoiceId: string, req: Request, t: Transaction) {
+export async function issueInvoice(actor: User, invoiceId: string, req: Request | null, t: Transaction, opts: { at?: Date; email?: boolean } = {}) {
   const invoice = (await Invoice.findOne({ where: { id: invoiceId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
   if (invoice.status !== 'draft') throw conflict('Only a draft is issued.', 'not_draft');
   const organization = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
   const booking = (await loadBooking(actor.organizationId, invoice.bookingId, t))!;
   const rules = rulesOf(organization);
-  const now = new Date();
+  const now = opts.at ?? new Date();
   const today = dateInZone(now, organization.timeZone);
   const year = Number(today.slice(0, 4));
   const number = `${rules.invoicePrefix}-${year}-${String(await nextNumber(organization.id, year, rules.invoicePrefix, t)).padStart(4, '0')}`;
@@ -182,6 +182,7 @@ export async function issueInvoice(actor: User, invoiceId: string, req: Request,
   const due = new Intl.DateTimeFormat('en-US', { timeZone: 'UTC', dateStyle: 'long' }).format(new Date(`${invoice.dueDate}T12:00:00Z`));
   const money = (c: number) => formatMoney(c, organization.currency);
   const doc = await issueDocument(actor, booking.id, 'invoice', req, t, {
+    issuedAt: opts.at,
     invoice: {
       number,
       schedule: [{ label: `${INVOICE_KIND_LABELS[invoice.kind]} ${number}`, dueDate: due, amount: money(invoice.totalCents) }],
@@ -191,7 +192,7 @@ export async function issueInvoice(actor: User, invoiceId: string, req: Request,
   invoice.documentId = doc.id;
   await invoice.save({ transaction: t });
   // Issued means sent: the customer gets the PDF by e-mail, queued in this transaction.
-  if (booking.customer.email) await sendDocument(actor, doc, booking.customer.email, req, t);
+  if (booking.customer.email && opts.email !== false) await sendDocument(actor, doc, booking.customer.email, req, t);
   await audit({ organizationId: organization.id, actorUserId: actor.id, action: 'invoice.issued', subjectType: 'booking', subjectId: booking.id, data: { invoiceId: invoice.id, number, totalCents: invoice.totalCents } }, req, t);
   return invoice;
 }
@@ -323,6 +324,8 @@ export async function recordPayment(
      * the invoice no longer owes (paid or voided meanwhile) becomes the customer's account credit.
      */
     moneyAlreadyTaken?: boolean;
+    /** False: no receipt e-mail (demo data loaded after the fact). */
+    email?: boolean;
   },
   req: Request | null,
   t: Transaction,
@@ -386,13 +389,14 @@ export async function recordPayment(
     await inv.save({ transaction: t });
   }
   const receipt = await issueDocument(actor, bookingId, 'receipt', req, t, {
+    issuedAt: input.email === false ? input.receivedAt : undefined,
     payment: { amountCents: total, method: words, receivedAt: input.receivedAt, reference: input.reference || invoices.map((i) => i.number).join(', ') },
   });
   payment.ledgerEntryId = entry.id;
   payment.receiptDocumentId = receipt.id;
   await payment.save({ transaction: t });
   const customer = (await Customer.findByPk(booking.customerId, { transaction: t }))!;
-  if (customer.email) await sendDocument(actor, receipt, customer.email, req, t);
+  if (customer.email && input.email !== false) await sendDocument(actor, receipt, customer.email, req, t);
   await audit(
     { organizationId: actor.organizationId, actorUserId: actor.id, action: 'payment.recorded', subjectType: 'booking', subjectId: bookingId, data: { paymentId: payment.id, amountCents: total, method: input.method, creditCents: toCredit } },
     req,
@@ -508,7 +512,7 @@ export async function moveSecurityDeposit(
   actor: User,
   bookingId: string,
   input: { action: 'collect' | 'refund' | 'keep' | 'apply'; amountCents: number; method?: 'cash' | 'check' | 'transfer' | 'card'; reason: string; invoiceId?: string },
-  req: Request,
+  req: Request | null,
   t: Transaction,
 ) {
   const booking = (await Booking.findOne({ where: { id: bookingId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;

@@ -6,6 +6,7 @@ import { ensureCompanyCertificate } from '../services/companyCertificate';
 import { quoteBooking } from '../services/pricing';
 import { demoCustomers, demoSeason, demoWindows, seededRandom } from './demoBookings';
 import { DEMO_STOCK } from './demoStock';
+import { seedDemoMoney } from './demoMoney';
 import { ItemInput } from '../../shared/schemas/items';
 
 /** The invented demo company; every name, address and number here is made up. */
@@ -23,7 +24,7 @@ export async function seedDemo(): Promise<boolean> {
   if (await User.findOne({ where: { email: DEMO_USERS[0].email } })) return false;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const rand = seededRandom(20260501);
-  await withTransaction(async (t) => {
+  const organizationId = await withTransaction(async (t) => {
     const org = await Organization.create(
       {
         name: 'Foxglove Tent & Table',
@@ -107,6 +108,8 @@ export async function seedDemo(): Promise<boolean> {
     }
     org.nextBookingNumber = number;
     await org.save({ transaction: t });
+    return org.id;
   });
+  await seedDemoMoney(organizationId, rand);
   return true;
 }
