@@ -4,6 +4,7 @@ import { authRouter } from './auth';
 import { bookingsRouter } from './bookings';
 import { customersRouter } from './customers';
 import { documentsRouter } from './documents';
+import { exportsRouter } from './exports';
 import { fieldRouter } from './field';
 import { invoicesRouter } from './invoices';
 import { signingRouter } from './signing';
@@ -12,6 +13,7 @@ import { planningRouter } from './planning';
 import { portalRouter } from './portal';
 import { devRouter } from './dev';
 import { organizationRouter } from './organization';
+import { reportsRouter } from './reports';
 import { usersRouter } from './users';
 
 export function apiRouter() {
@@ -29,6 +31,8 @@ export function apiRouter() {
   api.use('/customers', customersRouter);
   api.use('/bookings', bookingsRouter);
   api.use('/field', fieldRouter);
+  api.use('/exports', exportsRouter);
+  api.use('/reports', reportsRouter);
   if (env.FAKES === 'on') api.use('/dev', devRouter);
   return api;
 }
