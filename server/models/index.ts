@@ -13,6 +13,7 @@ import { Document } from './Document';
 import { FieldPhoto } from './FieldPhoto';
 import { DocumentSend } from './DocumentSend';
 import { DocumentTemplate } from './DocumentTemplate';
+import { ExportRun } from './ExportRun';
 import { Invoice } from './Invoice';
 import { Item } from './Item';
 import { JournalEntry } from './JournalEntry';
@@ -49,6 +50,7 @@ BookingCrew.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 ReturnCheck.hasMany(ReturnCheckLine, { foreignKey: 'returnCheckId', as: 'lines' });
 
 export {
+  ExportRun,
   BookingCrew, CalendarFeed, FieldPhoto, ReturnCheck, ReturnCheckLine, SiteCheck,
   Invoice, Payment, PaymentAllocation, Refund, SecurityDepositMove,
   CardCheckout, StripeEvent, CustomerSession, CustomerSignInToken,

@@ -1,0 +1,117 @@
+import { Transform, type Writable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import type { Response } from 'express';
+import type pg from 'pg';
+import { addDays, zonedTimeToInstant } from '../../../shared/dates';
+import { exportFilename, type ExportKind } from '../../../shared/schemas/exports';
+import { logger } from '../../logger';
+import { ExportRun, type Organization, type User } from '../../models';
+import { exportPool } from './db';
+
+/** What an export's writer gets: its connection (in a read-only snapshot), the range as instants, and a row counter. */
+export interface ExportContext {
+  client: pg.PoolClient;
+  organizationId: string;
+  timeZone: string;
+  currency: string;
+  /** First day, YYYY-MM-DD (the trial balance: null). */
+  from: string | null;
+  /** Last day, YYYY-MM-DD, included. */
+  to: string;
+  /** The first instant of `from` and the first instant after `to`, on the company's calendar. */
+  fromInstant: Date | null;
+  untilInstant: Date;
+  /** Call once per data row (CSV) or file (ZIP) sent. */
+  count(): void;
+}
+
+export type ExportWriter = (ctx: ExportContext, out: Writable) => Promise<void>;
+
+const CONTENT_TYPES = { csv: 'text/csv; charset=utf-8; header=present', zip: 'application/zip' } as const;
+
+/** The company-calendar range as instants: [start of `from`, start of the day after `to`). */
+export function rangeInstants(from: string | null, to: string, timeZone: string) {
+  return {
+    fromInstant: from ? zonedTimeToInstant(from, '00:00', timeZone) : null,
+    untilInstant: zonedTimeToInstant(addDays(to, 1), '00:00', timeZone),
+  };
+}
+
+/**
+ * Runs one export as a download: a history row, the download headers, a dedicated connection in a
+ * read-only REPEATABLE READ snapshot (every query of the export sees the same books), the writer
+ * streaming into the response with back-pressure, and the history row closed as ok, failed or
+ * aborted. The connection goes back to the pool on every path; after an error or an abort it is
+ * closed rather than reused, since a cursor may still be open on it.
+ */
+export async function runExport(
+  res: Response,
+  opts: { user: User; organization: Organization; kind: ExportKind; format: 'csv' | 'zip'; from: string | null; to: string; write: ExportWriter },
+): Promise<void> {
+  const { user, organization, kind, from, to } = opts;
+  const run = await ExportRun.create({ organizationId: organization.id, userId: user.id, kind, fromDate: from, toDate: to });
+  let rows = 0;
+  let bytes = 0;
+  let clientGone = false;
+  res.on('close', () => {
+    if (!res.writableFinished) clientGone = true;
+  });
+
+  const filename = exportFilename(kind, from, to);
+  res.status(200);
+  res.setHeader('Content-Type', CONTENT_TYPES[opts.format]);
+  res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Cache-Control', 'no-store');
+  // The history row, so the screen can match a download to its history line.
+  res.setHeader('X-Export-Run', run.id);
+
+  let client: pg.PoolClient | null = null;
+  let failure: unknown = null;
+  try {
+    client = await exportPool().connect();
+    await client.query('BEGIN ISOLATION LEVEL REPEATABLE READ READ ONLY');
+    const counter = new Transform({
+      transform(chunk: Buffer, _encoding, done) {
+        bytes += chunk.length;
+        done(null, chunk);
+      },
+    });
+    const delivered = pipeline(counter, res);
+    // A failure on either side destroys both pipelines; the other promise's rejection is the same failure.
+    delivered.catch(() => {});
+    await opts.write(
+      { client, organizationId: organization.id, timeZone: organization.timeZone, currency: organization.currency, from, to, ...rangeInstants(from, to, organization.timeZone), count: () => void rows++ },
+      counter,
+    );
+    await delivered;
+    await client.query('COMMIT');
+    client.release();
+    client = null;
+  } catch (err) {
+    failure = err;
+  } finally {
+    // Destroys the connection: a cursor may be half read on it.
+    client?.release(true);
+  }
+
+  const aborted = clientGone || (failure !== null && res.destroyed && !res.writableFinished && isPrematureClose(failure));
+  const status = failure === null && !clientGone ? 'ok' : aborted ? 'aborted' : 'failed';
+  if (status === 'failed') logger.error({ err: failure, exportRunId: run.id, kind }, 'export failed');
+  await run.update({
+    status, rowCount: rows, byteCount: bytes, finishedAt: new Date(),
+    error: status === 'failed' ? 'The export stopped on a server error; the file is incomplete.' : null,
+  });
+  if (status === 'failed' && !res.headersSent) {
+    // Nothing was sent yet: the usual error answer can still go out.
+    res.removeHeader('Content-Disposition');
+    throw failure;
+  }
+  // Mid-stream, the only honest signal left is a cut connection: the browser reports a failed download.
+  if (status === 'failed' && !res.destroyed) res.destroy();
+}
+
+function isPrematureClose(err: unknown) {
+  const code = (err as { code?: string } | null)?.code;
+  return code === 'ERR_STREAM_PREMATURE_CLOSE' || code === 'ECONNRESET' || code === 'EPIPE' || code === 'ERR_STREAM_DESTROYED';
+}
