@@ -140,8 +140,11 @@ bookingsRouter.get('/:id/history', authenticate, validate(IdParams, 'params'), a
   const actors = new Map(
     (await User.findAll({ where: { id: { [Op.in]: rows.map((r) => r.actorUserId).filter((x): x is string => !!x) }, organizationId: user.organizationId }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
   );
+  // The trail records invoice totals, payments and refunds: who may not see prices sees it without the amounts.
+  const seePrices = can(user, 'booking', 'seePrices');
+  const shown = (data: Record<string, unknown>) => (seePrices ? data : Object.fromEntries(Object.entries(data ?? {}).filter(([k]) => !k.endsWith('Cents'))));
   res.json({
-    data: rows.map((r) => ({ id: r.id, action: r.action, at: r.createdAt.toISOString(), actorName: r.actorUserId ? (actors.get(r.actorUserId) ?? 'Former user') : 'System', data: r.data })),
+    data: rows.map((r) => ({ id: r.id, action: r.action, at: r.createdAt.toISOString(), actorName: r.actorUserId ? (actors.get(r.actorUserId) ?? 'Former user') : 'System', data: shown(r.data) })),
     total: rows.length,
   });
 });
