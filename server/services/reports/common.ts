@@ -83,7 +83,7 @@ export function trace(t: EntriesTrace): EntriesTrace {
   return Object.fromEntries(Object.entries(t).filter(([, v]) => v !== undefined)) as unknown as EntriesTrace;
 }
 
-export function ledgerCheck(account: Account, ledgerCents: number, reportCents: number, t: EntriesTrace): LedgerCheck {
+export function ledgerCheck(account: Pick<Account, 'id' | 'code' | 'name'>, ledgerCents: number, reportCents: number, t: EntriesTrace): LedgerCheck {
   return { account: reportAccount(account), ledgerCents, reportCents, differenceCents: reportCents - ledgerCents, trace: trace(t) };
 }
 

@@ -73,8 +73,8 @@ export async function revenueReport(ctx: ReportContext, year: number): Promise<R
       .filter((b) => b.type === 'revenue' || b.type === 'contra_revenue')
       .reduce((s, b) => s + (b.type === 'revenue' ? b.balanceCents : -b.balanceCents), 0);
   const [endLast, endPrior, endThis] = [await netAt(`${last}-12-31`), await netAt(`${last - 1}-12-31`), await netAt(`${year}-12-31`)];
-  // The check names the main revenue account for its heading; its trace covers every revenue account.
-  const head = accounts.find((a) => a.type === 'revenue') ?? accounts[0];
+  // The check covers every revenue account: it is named for the range of their codes.
+  const head = { id: accounts[0]?.id ?? '', code: accounts.length > 1 ? `${accounts[0].code}–${accounts[accounts.length - 1].code}` : (accounts[0]?.code ?? ''), name: 'Revenue accounts' };
   return {
     year, timeZone: ctx.timeZone, currency: ctx.currency, accounts: accountRows, totals,
     reconciliation: {
