@@ -1,10 +1,22 @@
 /** Time-zone arithmetic with Intl only (no Node or browser APIs beyond it). */
 
+// One formatter per zone: building an Intl.DateTimeFormat costs far more than using one (tens of
+// microseconds, and a list of 50 bookings asks for hundreds of dates).
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+function formatter(timeZone: string): Intl.DateTimeFormat {
+  let f = formatters.get(timeZone);
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-US', {
+      timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit',
+    });
+    formatters.set(timeZone, f);
+  }
+  return f;
+}
+
 function parts(instant: number, timeZone: string) {
-  const f = new Intl.DateTimeFormat('en-US', {
-    timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit',
-  });
-  const p = Object.fromEntries(f.formatToParts(new Date(instant)).map((x) => [x.type, x.value]));
+  const p = Object.fromEntries(formatter(timeZone).formatToParts(new Date(instant)).map((x) => [x.type, x.value]));
   return { y: +p.year, m: +p.month, d: +p.day, h: +p.hour, min: +p.minute, s: +p.second };
 }
 
