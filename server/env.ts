@@ -21,6 +21,13 @@ const EnvSchema = z.object({
   /** The secret that signs the processor's webhook deliveries (whsec_...). */
   STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /**
+   * How long a started background job may run. A job whose process died (a crash, a lost machine)
+   * stays started until then; after it, another worker runs it again.
+   */
+  JOB_TIMEOUT_SECONDS: z.coerce.number().int().min(5).max(3600).default(600),
+  /** How often pg-boss looks for such jobs and archives finished ones (shared by all processes). */
+  JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(120),
   SESSION_DAYS: z.coerce.number().int().min(1).max(90).default(14),
   /** Express's `trust proxy`: which hops may set X-Forwarded-For (a reverse proxy on this machine by default). */
   TRUST_PROXY: z.string().default('loopback'),

@@ -8,7 +8,7 @@ import { Document, DocumentSend, Invoice, Organization } from '../models';
 import { payLinkUrl } from '../services/payLinks';
 import { cardPaymentsEnabled } from '../services/stripe';
 import { templateNameFor, templateSource } from '../services/documents';
-import { deliverMail, renderMail } from '../services/mailer';
+import { deliverOnce, renderMail } from '../services/mailer';
 import { WORKERS_PER_QUEUE } from './sendMail';
 import { readFile } from '../services/storage';
 
@@ -57,7 +57,8 @@ async function sendOne([job]: PgBoss.JobWithMetadata<{ sendId: string }>[]) {
       document.kind === 'signed_agreement'
         ? renderMail('signed-agreement', { customerName: values.customer.name, companyName: organization.name, number: document.number, reference: values.booking.reference, sha256: document.sha256 })
         : renderDocumentEmail((await templateSource(send.organizationId, templateNameFor(document.kind, true))).source, values, { link: await linkFor(document) });
-    await deliverMail({
+    // Once per send, even when a crash makes pg-boss run this job again (see deliverOnce).
+    await deliverOnce(`send-document:${send.id}`, {
       to: send.to,
       ...mail,
       fromName: organization.name,

@@ -14,7 +14,7 @@ let starting: Promise<PgBoss> | null = null;
 export function getBoss(): Promise<PgBoss> {
   if (boss) return Promise.resolve(boss);
   if (!starting) {
-    const b = new PgBoss({ connectionString: env.DATABASE_URL, max: 4, application_name: 'guyline-jobs' });
+    const b = new PgBoss({ connectionString: env.DATABASE_URL, max: 4, application_name: 'guyline-jobs', maintenanceIntervalSeconds: env.JOB_MAINTENANCE_SECONDS });
     b.on('error', (err) => logger.error({ err }, 'job queue error'));
     starting = b
       .start()
@@ -44,7 +44,7 @@ export async function stopBoss() {
  */
 export async function queueJob(name: QueueName, data: object, transaction?: Transaction) {
   const b = await getBoss();
-  const options: PgBoss.SendOptions = { retryLimit: 5, retryDelay: 10, retryBackoff: true, expireInMinutes: 10 };
+  const options: PgBoss.SendOptions = { retryLimit: 5, retryDelay: 10, retryBackoff: true, expireInSeconds: env.JOB_TIMEOUT_SECONDS };
   if (transaction) {
     options.db = {
       // The transaction's own pg connection: the job row commits or rolls back with it.
