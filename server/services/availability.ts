@@ -91,13 +91,19 @@ export async function checkAvailability(
   if (ids.length === 0) return [];
   // Locking the item rows (in id order, so two reservers never deadlock) makes concurrent
   // reservations of the same item take turns: the second one sees the first one's hold.
-  const items = await Item.findAll({
-    where: { id: { [Op.in]: ids }, organizationId },
-    order: [['id', 'ASC']],
-    transaction: opts.transaction,
-    lock: opts.lockItems && opts.transaction ? opts.transaction.LOCK.UPDATE : undefined,
-  });
-  const holds = await findHolds(organizationId, ids, from, to, turnaroundHours, opts);
+  const lock = opts.lockItems && opts.transaction ? opts.transaction.LOCK.UPDATE : undefined;
+  const loadItems = () =>
+    Item.findAll({
+      where: { id: { [Op.in]: ids }, organizationId },
+      attributes: ['id', 'name', 'kind', 'quantityOwned'],
+      order: [['id', 'ASC']],
+      transaction: opts.transaction,
+      lock,
+      raw: true,
+    });
+  const loadHolds = () => findHolds(organizationId, ids, from, to, turnaroundHours, opts);
+  // A reservation reads the holds only once it has the locks; a check that locks nothing asks both at once.
+  const [items, holds] = lock ? [await loadItems(), await loadHolds()] : await Promise.all([loadItems(), loadHolds()]);
   return items
     .filter((item) => item.kind !== 'service')
     .map((item) => {

@@ -1,8 +1,22 @@
 import { Op } from 'sequelize';
-import type { Transaction } from '../db';
+import { sequelize, type Transaction } from '../db';
 import { Booking, BookingLine, Customer, Invoice, Item, User } from '../models';
 
 export type PricedBooking = Booking & { customer: Customer; lines: BookingLine[] };
+
+/**
+ * A booking's lines (each with its item's kind) as one JSON column of the booking's own row,
+ * keyed as the presenter and the quote read them, for lists: a page of bookings and all their
+ * lines in one query, without a Sequelize instance per line. Amounts are bigint cents, which JSON
+ * carries as exact numbers.
+ */
+export const LINES_AS_JSON = sequelize.literal(`(
+  SELECT coalesce(json_agg(json_build_object(
+           'id', bl.id, 'position', bl.position, 'itemId', bl.item_id, 'item', json_build_object('kind', i.kind), 'description', bl.description,
+           'quantity', bl.quantity, 'unitPriceCents', bl.unit_price_cents, 'extraDays', bl.extra_days, 'extraDayPriceCents', bl.extra_day_price_cents,
+           'discountBp', bl.discount_bp, 'discountCents', bl.discount_cents, 'taxable', bl.taxable, 'kind', bl.kind) ORDER BY bl.position), '[]')
+    FROM booking_lines bl LEFT JOIN items i ON i.id = bl.item_id
+   WHERE bl.booking_id = "Booking"."id")`);
 
 /** A booking of the company with its customer and lines (each with its item's kind): what a quote or document needs. */
 export async function findPricedBooking(organizationId: string, bookingId: string, transaction?: Transaction) {
