@@ -1,4 +1,5 @@
 import type { NextFunction, Request, Response } from 'express';
+import { ConnectionError } from 'sequelize';
 import { HttpError } from '../errors';
 import { logger } from '../logger';
 
@@ -22,8 +23,29 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   if (e?.type === 'charset.unsupported' || e?.type === 'encoding.unsupported') {
     return res.status(415).json({ error: { code: 'unsupported_media_type', message: 'Send the body as UTF-8 JSON.' } });
   }
+  if (databaseUnavailable(err)) {
+    logger.warn({ err: (err as Error).message, url: req.originalUrl, method: req.method }, 'database unavailable');
+    res.setHeader('Retry-After', '5');
+    return res.status(503).json({ error: { code: 'database_unavailable', message: 'Guyline cannot reach its database just now. Nothing was changed; try again in a minute.' } });
+  }
   logger.error({ err, url: req.originalUrl, method: req.method }, 'request failed');
   res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. Try again, and tell us if it keeps happening.' } });
+}
+
+/**
+ * Errors that mean the database is out of reach rather than a mistake in the request or the code:
+ * no connection (refused, timed out, none free in the pool), a connection cut by a restarting
+ * server (SQLSTATE class 08, 57P01-57P03 shutdown and start-up, 53300 too many connections).
+ * A transaction cut off this way is rolled back by PostgreSQL, so nothing was half-saved.
+ */
+export function databaseUnavailable(err: unknown): boolean {
+  if (err instanceof ConnectionError) return true;
+  const e = err as { code?: unknown; parent?: { code?: unknown; message?: unknown }; original?: { code?: unknown }; message?: unknown } | null;
+  const code = e?.parent?.code ?? e?.original?.code ?? e?.code;
+  if (typeof code === 'string' && /^(08|57P0[1-3]$|53300$)/.test(code)) return true;
+  if (typeof code === 'string' && /^(ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT)$/.test(code)) return true;
+  const message = String(e?.parent?.message ?? e?.message ?? '');
+  return /Connection terminated|Client has encountered a connection error|terminating connection/i.test(message);
 }
 
 export function notFoundHandler(req: Request, res: Response) {

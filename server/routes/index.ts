@@ -6,6 +6,7 @@ import { customersRouter } from './customers';
 import { documentsRouter } from './documents';
 import { exportsRouter } from './exports';
 import { fieldRouter } from './field';
+import { health } from './health';
 import { invoicesRouter } from './invoices';
 import { signingRouter } from './signing';
 import { itemsRouter } from './items';
@@ -18,7 +19,7 @@ import { usersRouter } from './users';
 
 export function apiRouter() {
   const api = Router();
-  api.get('/health', (_req, res) => res.json({ ok: true }));
+  api.get('/health', health);
   api.use('/auth', authRouter);
   api.use('/users', usersRouter);
   api.use('/', planningRouter);
