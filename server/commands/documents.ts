@@ -58,7 +58,11 @@ export async function issueDocument(
   if (!booking) throw conflict('That booking was not found.', 'not_found');
   await Booking.findByPk(booking.id, { transaction, lock: transaction.LOCK.UPDATE });
   if (booking.lines.length === 0) throw conflict('Add lines to the booking before issuing documents.', 'empty_booking');
-  const organization = (await Organization.findByPk(actor.organizationId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+  // NO KEY UPDATE, not UPDATE: numbering still takes turns, but the lock does not wait on the KEY
+  // SHARE locks that rows inserted earlier in other transactions (a payment, a journal entry that
+  // refer to the company) hold on the company row. With UPDATE, two card payments recorded at once
+  // each inserted first and then waited here for the other: a deadlock.
+  const organization = (await Organization.findByPk(actor.organizationId, { transaction, lock: transaction.LOCK.NO_KEY_UPDATE }))!;
 
   const versioned = VERSIONED[kind] && !extra.invoice;
   // The PDFs of invoice records are their own documents: never replaced by a new version of the booking's invoice.
