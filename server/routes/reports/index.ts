@@ -68,7 +68,7 @@ reportsRouter.get('/stock', authenticate, validate(PeriodQuery, 'query'), async 
   const { user, organization } = auth(req);
   authorize(user, 'report', 'read');
   const { from, to } = periodOf(parsed<PeriodQuery>(res, 'query'), todayIn(organization.timeZone));
-  const body: StockReport = await readReport(organization, (ctx) => stockReport(ctx, organization, from, to));
+  const body: StockReport = await readReport(organization, (ctx) => stockReport(ctx, from, to));
   res.json(body);
 });
 

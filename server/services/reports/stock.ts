@@ -10,29 +10,27 @@
  *
  * Revenue attribution: a booking's rental revenue is what its deposit and balance invoices billed
  * as rental (issued, not void), less the rental part of credit notes on them. That amount is split
- * over the booking's rental lines in proportion to their net amounts after line and booking
- * discounts (the quote's own split, to the cent by largest remainder), and an item gets the share
- * of its lines. Delivery, labor, damage waiver, tax and additional charges are not the item's.
+ * over the booking's rental lines in proportion to their net amounts after discounts (to the cent,
+ * by largest remainder), and an item gets the share of its lines. Delivery, labor, damage waiver, tax and additional charges are not the item's.
  * Revenue counts on the event day. The item has paid for itself on the first event day on which its
  * revenue to date reaches its purchase cost times the quantity owned.
  */
 import { Op, QueryTypes } from 'sequelize';
-import { allocate } from '../../../shared/money';
+import { allocate, multiply, percentOf, subtract, sum } from '../../../shared/money';
 import type { StockBookingRow, StockItemRow, StockReport } from '../../../shared/schemas/reports';
 import { sequelize } from '../../db';
-import { Booking, BookingLine, Customer, Item, type Organization } from '../../models';
-import { quoteBooking } from '../pricing';
-import { daysBetweenInclusive, isoDate, type ReportContext } from './common';
+import { Item } from '../../models';
+import { daysBetweenInclusive, endOfDay, isoDate, type ReportContext } from './common';
 
 /** Bookings whose stock counts as out: it was delivered or is held for the event. */
 export const OUT_STATUSES = ['reserved', 'out', 'returned', 'closed'] as const;
 
-interface Billed { billed: number; credited: number; invoiceIds: string[] }
+interface Billed { billed: number; credited: number; invoices: { id: string; number: string | null }[] }
 
 /** Each booking's rental billed on deposit and balance invoices, net of the rental part of their credit notes. */
 async function rentalBilled(ctx: ReportContext): Promise<Map<string, Billed>> {
-  const rows = await sequelize.query<{ id: string; booking_id: string; kind: string; rental_cents: number }>(
-    `SELECT i.id, i.booking_id, i.kind, i.rental_cents
+  const rows = await sequelize.query<{ id: string; number: string | null; booking_id: string; kind: string; rental_cents: number }>(
+    `SELECT i.id, i.number, i.booking_id, i.kind, i.rental_cents
        FROM invoices i
        LEFT JOIN invoices o ON o.id = i.credits_invoice_id
       WHERE i.organization_id = :org
@@ -42,62 +40,83 @@ async function rentalBilled(ctx: ReportContext): Promise<Map<string, Billed>> {
   );
   const out = new Map<string, Billed>();
   for (const r of rows) {
-    const b = out.get(r.booking_id) ?? { billed: 0, credited: 0, invoiceIds: [] };
+    const b = out.get(r.booking_id) ?? { billed: 0, credited: 0, invoices: [] };
     if (r.kind === 'credit_note') b.credited += Number(r.rental_cents);
     else b.billed += Number(r.rental_cents);
-    b.invoiceIds.push(r.id);
+    b.invoices.push({ id: r.id, number: r.number });
     out.set(r.booking_id, b);
   }
   return out;
 }
 
-export async function stockReport(ctx: ReportContext, organization: Organization, from: string, to: string): Promise<StockReport> {
+/**
+ * A line's net after its own discount: the same arithmetic as the quote (shared/quote.ts). The
+ * booking-wide discount is spread over the lines in proportion to these nets, so they weigh the
+ * lines' shares of the billed rental in the same proportion without working the whole quote.
+ */
+function lineNet(l: { quantity: number; unit_price_cents: number; extra_days: number; extra_day_price_cents: number; discount_bp: number; discount_cents: number }) {
+  const gross = multiply(sum([Number(l.unit_price_cents), multiply(Number(l.extra_day_price_cents), l.extra_days)]), l.quantity);
+  return subtract(gross, Math.min(gross, sum([percentOf(gross, l.discount_bp), Number(l.discount_cents)])));
+}
+
+interface LineRow {
+  booking_id: string; reference: string; status: string; event_start: Date; delivery_start: Date; pickup_end: Date;
+  item_id: string | null; kind: 'rental' | 'fee'; quantity: number; unit_price_cents: number; extra_days: number; extra_day_price_cents: number;
+  discount_bp: number; discount_cents: number;
+}
+
+export async function stockReport(ctx: ReportContext, from: string, to: string): Promise<StockReport> {
   const items = await Item.findAll({ where: { organizationId: ctx.organizationId, kind: { [Op.ne]: 'service' } }, order: [['name', 'ASC']], transaction: ctx.t });
   const billed = await rentalBilled(ctx);
-  const bookings = (await Booking.findAll({
-    where: {
-      organizationId: ctx.organizationId,
-      [Op.or]: [{ status: { [Op.in]: [...OUT_STATUSES] } }, { id: { [Op.in]: [...billed.keys()] } }],
+  // The bookings that count: out in the period (or ever, for each item's first delivery), or billed for rental up to its end.
+  const lines = await sequelize.query<LineRow>(
+    `SELECT b.id AS booking_id, b.reference, b.status, b.event_start, b.delivery_start, b.pickup_end,
+            l.item_id, l.kind, l.quantity, l.unit_price_cents, l.extra_days, l.extra_day_price_cents, l.discount_bp, l.discount_cents
+       FROM bookings b JOIN booking_lines l ON l.booking_id = b.id
+      WHERE b.organization_id = :org
+        AND (b.status IN (:out) OR (b.id IN (:billed) AND b.event_start < :until))
+      ORDER BY b.event_start, b.reference, l.position`,
+    {
+      replacements: { org: ctx.organizationId, out: [...OUT_STATUSES], billed: billed.size ? [...billed.keys()] : [null], until: endOfDay(to, ctx.timeZone) },
+      type: QueryTypes.SELECT,
+      transaction: ctx.t,
     },
-    include: [{ model: BookingLine, as: 'lines' }, { model: Customer, as: 'customer' }],
-    order: [['eventStart', 'ASC'], ['reference', 'ASC']],
-    transaction: ctx.t,
-  })) as (Booking & { lines: BookingLine[]; customer: Customer })[];
+  );
+  const byBooking = new Map<string, LineRow[]>();
+  for (const l of lines) byBooking.set(l.booking_id, [...(byBooking.get(l.booking_id) ?? []), l]);
 
   const perItem = new Map<string, StockBookingRow[]>();
   const firstDelivery = new Map<string, string>();
-  for (const b of bookings) {
-    const lines = [...b.lines].sort((x, y) => x.position - y.position);
-    const deliveryDate = isoDate(b.deliveryStart, ctx.timeZone);
-    const pickupDate = isoDate(b.pickupEnd, ctx.timeZone);
-    const eventDate = isoDate(b.eventStart, ctx.timeZone);
+  for (const [bookingId, mine] of byBooking) {
+    const b = mine[0];
+    const deliveryDate = isoDate(b.delivery_start, ctx.timeZone);
+    const pickupDate = isoDate(b.pickup_end, ctx.timeZone);
+    const eventDate = isoDate(b.event_start, ctx.timeZone);
     const holds = (OUT_STATUSES as readonly string[]).includes(b.status);
 
     // The rental billed, split over the rental lines by their net after discounts.
-    const money = billed.get(b.id);
-    const shares = new Array<number>(lines.length).fill(0);
+    const money = billed.get(bookingId);
+    const shares = new Array<number>(mine.length).fill(0);
     if (money) {
-      const quote = quoteBooking(b, lines, b.customer, organization);
-      const weights = quote.lines.map((l) => (l.kind === 'rental' ? l.netCents : 0));
+      const weights = mine.map((l) => (l.kind === 'rental' ? lineNet(l) : 0));
       if (weights.some((w) => w > 0)) allocate(money.billed - money.credited, weights).forEach((c, i) => (shares[i] = c));
     }
     const byItem = new Map<string, { quantity: number; revenueCents: number }>();
-    lines.forEach((l, i) => {
-      if (!l.itemId) return;
-      const x = byItem.get(l.itemId) ?? { quantity: 0, revenueCents: 0 };
+    mine.forEach((l, i) => {
+      if (!l.item_id) return;
+      const x = byItem.get(l.item_id) ?? { quantity: 0, revenueCents: 0 };
       x.quantity += l.quantity;
       x.revenueCents += shares[i];
-      byItem.set(l.itemId, x);
+      byItem.set(l.item_id, x);
     });
     for (const [itemId, x] of byItem) {
       if (holds && (!firstDelivery.has(itemId) || deliveryDate < firstDelivery.get(itemId)!)) firstDelivery.set(itemId, deliveryDate);
-      perItem.set(itemId, [
-        ...(perItem.get(itemId) ?? []),
-        {
-          bookingId: b.id, reference: b.reference, status: b.status, eventDate, deliveryDate, pickupDate, quantity: x.quantity,
-          daysOutInPeriod: 0, revenueCents: x.revenueCents, invoiceIds: money?.invoiceIds ?? [],
-        },
-      ]);
+      const list = perItem.get(itemId) ?? [];
+      list.push({
+        bookingId, reference: b.reference, status: b.status, eventDate, deliveryDate, pickupDate, quantity: x.quantity,
+        daysOutInPeriod: 0, revenueCents: x.revenueCents, invoices: money?.invoices ?? [],
+      });
+      perItem.set(itemId, list);
     }
   }
 
