@@ -184,7 +184,7 @@ export interface SalesTaxRow {
   returnedCents: number;
   netCents: number;
   /** The invoices and credit notes behind the row. */
-  invoiceIds: string[];
+  invoices: { id: string; number: string | null }[];
   trace: EntriesTrace;
 }
 
@@ -242,7 +242,8 @@ export interface StockBookingRow {
   daysOutInPeriod: number;
   /** The item's share of the rental billed on the booking's invoices, net of credit notes. */
   revenueCents: number;
-  invoiceIds: string[];
+  /** The deposit and balance invoices and their credit notes the revenue comes from. */
+  invoices: { id: string; number: string | null }[];
 }
 
 export interface StockItemRow {
