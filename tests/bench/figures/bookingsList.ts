@@ -16,7 +16,13 @@ export function monthRange(month: string, zone: string) {
   return { from: zonedTimeToInstant(first, '00:00', zone), to: zonedTimeToInstant(`${next}-01`, '00:00', zone) };
 }
 
+// The page first, then its customers and lines: what a person writing it by hand would do.
 const SQL = `
+  WITH page AS (
+    SELECT * FROM bookings
+     WHERE organization_id = $1 AND event_start < $3 AND event_end > $2
+     ORDER BY event_start, reference
+     LIMIT 50)
   SELECT b.id, b.reference, b.status, b.event_start, b.event_end, b.delivery_start, b.delivery_end, b.pickup_start, b.pickup_end,
          b.site_line1, b.site_line2, b.site_city, b.site_region, b.site_postal_code, b.site_notes, b.surface, b.anchoring,
          b.utility_locate_number, b.utility_locate_date, b.guest_count, b.seating, b.after_dark, b.delivery_miles, b.setup_labor_cents,
@@ -28,12 +34,10 @@ const SQL = `
                          bl.extra_day_price_cents, bl.discount_bp, bl.discount_cents, bl.taxable, bl.kind
                     FROM booking_lines bl LEFT JOIN items i ON i.id = bl.item_id
                    WHERE bl.booking_id = b.id) l) AS lines,
-         count(*) OVER () AS total
-    FROM bookings b
+         (SELECT count(*) FROM bookings WHERE organization_id = $1 AND event_start < $3 AND event_end > $2) AS total
+    FROM page b
     JOIN customers c ON c.id = b.customer_id
-   WHERE b.organization_id = $1 AND b.event_start < $3 AND b.event_end > $2
-   ORDER BY b.event_start, b.reference
-   LIMIT 50`;
+   ORDER BY b.event_start, b.reference`;
 
 export async function bookingsListFigure(ctx: BenchContext): Promise<Result> {
   const { from, to } = monthRange(BUSY_MONTH, ctx.timeZone);
@@ -55,7 +59,7 @@ export async function bookingsListFigure(ctx: BenchContext): Promise<Result> {
       if (reply.status !== 200) throw new Error(`GET ${path} answered ${reply.status}.`);
     },
     query,
-    { warmup: 5, runs: 31 },
+    { warmup: 5, runs: 51 },
   );
   return {
     key: 'bookings-list',
