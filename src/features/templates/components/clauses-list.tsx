@@ -36,10 +36,10 @@ export function ClausesList({ clauses, canEdit, busy, onEdit, onMove, onDelete }
             </div>
             {canEdit ? (
               <div className="flex flex-wrap gap-1">
-                <Button size="sm" variant="ghost" disabled={busy || i === 0} onClick={() => onMove(i, -1)} aria-label={`Move ${c.title} up`}>
+                <Button size="sm" variant="ghost" disabled={busy || i === 0} onClick={() => onMove(i, -1)} aria-label={`Move up: ${c.title}`}>
                   Move up
                 </Button>
-                <Button size="sm" variant="ghost" disabled={busy || i === clauses.length - 1} onClick={() => onMove(i, 1)} aria-label={`Move ${c.title} down`}>
+                <Button size="sm" variant="ghost" disabled={busy || i === clauses.length - 1} onClick={() => onMove(i, 1)} aria-label={`Move down: ${c.title}`}>
                   Move down
                 </Button>
                 <Button size="sm" variant="secondary" disabled={busy} onClick={() => onEdit(c)} aria-label={`Edit ${c.title}`}>
