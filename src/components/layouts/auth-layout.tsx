@@ -9,9 +9,11 @@ export function AuthLayout({ title, description, children, footer }: { title: st
   return (
     <div className="flex min-h-dvh flex-col items-center bg-canvas-100 px-4 py-10 sm:py-16">
       <Title>{title}</Title>
-      <Link to={paths.home.getHref()} className="mb-8 rounded-md" aria-label="Guyline home">
-        <Logo />
-      </Link>
+      <header className="mb-8">
+        <Link to={paths.home.getHref()} className="block rounded-md" aria-label="Guyline home">
+          <Logo />
+        </Link>
+      </header>
       <main className="w-full max-w-md">
         <div className="rounded-lg border border-canvas-200 bg-white p-6 shadow-sm sm:p-8">
           <h1 className="text-2xl font-bold tracking-tight text-canvas-900">{title}</h1>
