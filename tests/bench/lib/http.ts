@@ -27,7 +27,7 @@ export class BenchClient {
   }
 
   /** Sends a request; `onChunk` sees the body as it streams (then `body` stays empty). */
-  request(method: string, path: string, opts: { json?: unknown; onChunk?: (chunk: Buffer) => void } = {}): Promise<Reply> {
+  request(method: string, path: string, opts: { json?: unknown; onChunk?: (chunk: Buffer) => void; retried?: boolean } = {}): Promise<Reply> {
     const payload = opts.json === undefined ? undefined : Buffer.from(JSON.stringify(opts.json));
     const headers: Record<string, string> = { accept: '*/*' };
     if (this.cookies.size) headers.cookie = this.cookieHeader;
@@ -54,7 +54,12 @@ export class BenchClient {
         });
         res.on('error', reject);
       });
-      req.on('error', reject);
+      req.on('error', (err: NodeJS.ErrnoException) => {
+        // The server may close an idle kept-alive socket just as it is reused: Node's documented
+        // remedy is to send the request again on a new socket.
+        if (req.reusedSocket && err.code === 'ECONNRESET' && !opts.retried) resolve(this.request(method, path, { ...opts, retried: true }));
+        else reject(err);
+      });
       req.end(payload);
     });
   }
