@@ -183,8 +183,8 @@ export interface SalesTaxRow {
   /** Tax given back by credit notes and voids in the month (debits). */
   returnedCents: number;
   netCents: number;
-  /** The invoices and credit notes behind the row. */
-  invoices: { id: string; number: string | null }[];
+  /** How many invoices and credit notes are behind the row (the entries drawer links each). */
+  invoiceCount: number;
   trace: EntriesTrace;
 }
 
@@ -261,10 +261,13 @@ export interface StockItemRow {
   /** The event day on which the revenue to date first reached the cost; null when not yet or no cost. */
   paidForItselfOn: string | null;
   payback: 'paid_back' | 'not_yet' | 'no_cost';
+  /** The bookings that took it out or earned from it in the period. */
+  bookingCount: number;
+  /** Those bookings: only in GET /api/reports/stock/items/:id (the list leaves them out). */
   bookings: StockBookingRow[];
 }
 
-/** GET /api/reports/stock */
+/** GET /api/reports/stock, and GET /api/reports/stock/items/:id (one item, with its bookings) */
 export interface StockReport {
   from: string;
   to: string;

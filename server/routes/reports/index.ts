@@ -11,7 +11,9 @@ import {
 } from '../../../shared/schemas/reports';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
-import { authorize } from '../../policies';
+import { IdParams } from '../../../shared/schemas/common';
+import { Item } from '../../models';
+import { authorize, sameOrganization } from '../../policies';
 import { agingReport } from '../../services/reports/aging';
 import { readReport, todayIn } from '../../services/reports/common';
 import { depositsReport } from '../../services/reports/deposits';
@@ -69,6 +71,15 @@ reportsRouter.get('/stock', authenticate, validate(PeriodQuery, 'query'), async 
   authorize(user, 'report', 'read');
   const { from, to } = periodOf(parsed<PeriodQuery>(res, 'query'), todayIn(organization.timeZone));
   const body: StockReport = await readReport(organization, (ctx) => stockReport(ctx, from, to));
+  res.json(body);
+});
+
+reportsRouter.get('/stock/items/:id', authenticate, validate(IdParams, 'params'), validate(PeriodQuery, 'query'), async (req, res) => {
+  const { user, organization } = auth(req);
+  authorize(user, 'report', 'read');
+  const item = sameOrganization(user, await Item.findByPk(parsed<{ id: string }>(res, 'params').id, { attributes: ['id', 'organizationId'] }), 'That item');
+  const { from, to } = periodOf(parsed<PeriodQuery>(res, 'query'), todayIn(organization.timeZone));
+  const body: StockReport = await readReport(organization, (ctx) => stockReport(ctx, from, to, { itemId: item.id }));
   res.json(body);
 });
 

@@ -24,9 +24,9 @@ export async function tracedEntries(ctx: ReportContext, query: EntriesQuery): Pr
   // Liabilities and revenue (with its contra) read credits less debits; assets debits less credits.
   const side: 'credit' | 'debit' = accounts.some((a) => CREDIT_SIDE.includes(a.type)) ? 'credit' : 'debit';
 
-  const where = [
+  // Line filters give the figure; entry filters pick the entries that carry it.
+  const entryFilters = [
     'e.organization_id = :org',
-    'l.account_id IN (:ids)',
     query.from ? 'e.occurred_at >= :from' : null,
     query.to ? 'e.occurred_at < :until' : null,
     query.bookingId ? 'e.booking_id = :bookingId' : null,
@@ -40,25 +40,23 @@ export async function tracedEntries(ctx: ReportContext, query: EntriesQuery): Pr
     bookingId: query.bookingId ?? null, customerId: query.customerId ?? null, rate: query.taxRateBp ?? null,
     limit: query.pageSize, offset: (query.page - 1) * query.pageSize,
   };
-  const traced = `SELECT e.id, sum(l.debit_cents)::bigint AS debit, sum(l.credit_cents)::bigint AS credit
-                    FROM journal_entries e JOIN journal_lines l ON l.entry_id = e.id LEFT JOIN bookings b ON b.id = e.booking_id
-                   WHERE ${where}
-                   GROUP BY e.id`;
   const [summary] = await sequelize.query<{ n: number; debit: number; credit: number }>(
-    `SELECT count(*)::int AS n, coalesce(sum(debit), 0)::bigint AS debit, coalesce(sum(credit), 0)::bigint AS credit FROM (${traced}) t`,
+    `SELECT count(DISTINCT l.entry_id)::int AS n, coalesce(sum(l.debit_cents), 0)::bigint AS debit, coalesce(sum(l.credit_cents), 0)::bigint AS credit
+       FROM journal_lines l JOIN journal_entries e ON e.id = l.entry_id LEFT JOIN bookings b ON b.id = e.booking_id
+      WHERE l.organization_id = :org AND l.account_id IN (:ids) AND ${entryFilters}`,
     { replacements, type: QueryTypes.SELECT, transaction: ctx.t },
   );
   const page = await sequelize.query<{
-    id: string; debit: number; credit: number; occurred_at: Date; kind: string; memo: string; booking_id: string | null; reference: string | null;
+    id: string; occurred_at: Date; kind: string; memo: string; booking_id: string | null; reference: string | null;
     customer_id: string | null; customer_name: string | null; invoice_id: string | null; invoice_number: string | null;
   }>(
-    `SELECT t.id, t.debit, t.credit, e.occurred_at, e.kind, e.memo, e.booking_id, b.reference, e.customer_id, c.name AS customer_name,
+    `SELECT e.id, e.occurred_at, e.kind, e.memo, e.booking_id, b.reference, e.customer_id, c.name AS customer_name,
             i.id AS invoice_id, i.number AS invoice_number
-       FROM (${traced}) t
-       JOIN journal_entries e ON e.id = t.id
+       FROM journal_entries e
        LEFT JOIN bookings b ON b.id = e.booking_id
        LEFT JOIN customers c ON c.id = e.customer_id
        LEFT JOIN invoices i ON e.source_type = 'invoice' AND i.id = e.source_id
+      WHERE ${entryFilters} AND EXISTS (SELECT 1 FROM journal_lines l WHERE l.entry_id = e.id AND l.account_id IN (:ids))
       ORDER BY e.occurred_at, e.created_at, e.id
       LIMIT :limit OFFSET :offset`,
     { replacements, type: QueryTypes.SELECT, transaction: ctx.t },
@@ -73,19 +71,23 @@ export async function tracedEntries(ctx: ReportContext, query: EntriesQuery): Pr
       )
     : [];
   const effect = (debit: number, credit: number) => (side === 'credit' ? Number(credit) - Number(debit) : Number(debit) - Number(credit));
-  const entries: TracedEntry[] = page.map((p) => ({
-    id: p.id,
-    occurredAt: new Date(p.occurred_at).toISOString(),
-    kind: p.kind,
-    memo: p.memo,
-    booking: p.booking_id ? { id: p.booking_id, reference: p.reference! } : null,
-    customer: p.customer_id ? { id: p.customer_id, name: p.customer_name! } : null,
-    invoice: p.invoice_id ? { id: p.invoice_id, number: p.invoice_number } : null,
-    lines: lines
-      .filter((l) => l.entry_id === p.id)
-      .map((l) => ({ accountId: l.account_id, accountCode: l.code, accountName: l.name, debitCents: Number(l.debit_cents), creditCents: Number(l.credit_cents), traced: ids.includes(l.account_id) })),
-    effectCents: effect(p.debit, p.credit),
-  }));
+  const entries: TracedEntry[] = page.map((p) => {
+    const mine = lines.filter((l) => l.entry_id === p.id);
+    const traced = mine.filter((l) => ids.includes(l.account_id));
+    return {
+      id: p.id,
+      occurredAt: new Date(p.occurred_at).toISOString(),
+      kind: p.kind,
+      memo: p.memo,
+      booking: p.booking_id ? { id: p.booking_id, reference: p.reference! } : null,
+      customer: p.customer_id ? { id: p.customer_id, name: p.customer_name! } : null,
+      invoice: p.invoice_id ? { id: p.invoice_id, number: p.invoice_number } : null,
+      lines: mine.map((l) => ({
+        accountId: l.account_id, accountCode: l.code, accountName: l.name, debitCents: Number(l.debit_cents), creditCents: Number(l.credit_cents), traced: ids.includes(l.account_id),
+      })),
+      effectCents: effect(traced.reduce((a, l) => a + Number(l.debit_cents), 0), traced.reduce((a, l) => a + Number(l.credit_cents), 0)),
+    };
+  });
   return {
     accounts: accounts.map((a) => ({ id: a.id, code: a.code, name: a.name, type: a.type })),
     entries, total: Number(summary.n), totalCents: effect(summary.debit, summary.credit), side, currency: ctx.currency, timeZone: ctx.timeZone,

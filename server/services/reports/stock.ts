@@ -16,7 +16,7 @@
  * revenue to date reaches its purchase cost times the quantity owned.
  */
 import { Op, QueryTypes } from 'sequelize';
-import { allocate, multiply, percentOf, subtract, sum } from '../../../shared/money';
+import { allocate } from '../../../shared/money';
 import type { StockBookingRow, StockItemRow, StockReport } from '../../../shared/schemas/reports';
 import { sequelize } from '../../db';
 import { Item } from '../../models';
@@ -49,56 +49,70 @@ async function rentalBilled(ctx: ReportContext): Promise<Map<string, Billed>> {
   return out;
 }
 
-/**
- * A line's net after its own discount: the same arithmetic as the quote (shared/quote.ts). The
- * booking-wide discount is spread over the lines in proportion to these nets, so they weigh the
- * lines' shares of the billed rental in the same proportion without working the whole quote.
- */
-function lineNet(l: { quantity: number; unit_price_cents: number; extra_days: number; extra_day_price_cents: number; discount_bp: number; discount_cents: number }) {
-  const gross = multiply(sum([Number(l.unit_price_cents), multiply(Number(l.extra_day_price_cents), l.extra_days)]), l.quantity);
-  return subtract(gross, Math.min(gross, sum([percentOf(gross, l.discount_bp), Number(l.discount_cents)])));
-}
-
 interface LineRow {
-  booking_id: string; reference: string; status: string; event_start: Date; delivery_start: Date; pickup_end: Date;
-  item_id: string | null; kind: 'rental' | 'fee'; quantity: number; unit_price_cents: number; extra_days: number; extra_day_price_cents: number;
-  discount_bp: number; discount_cents: number;
+  booking_id: string; reference: string; status: string; event_start: Date; event_date: string; delivery_date: string; pickup_date: string;
+  item_id: string | null; quantity: number; rental_net: number;
 }
 
-export async function stockReport(ctx: ReportContext, from: string, to: string): Promise<StockReport> {
-  const items = await Item.findAll({ where: { organizationId: ctx.organizationId, kind: { [Op.ne]: 'service' } }, order: [['name', 'ASC']], transaction: ctx.t });
+/**
+ * Every item's figures over the period; with `itemId`, that one item's, with the bookings behind
+ * them (the list leaves them out: a busy company has tens of thousands in a year).
+ */
+export async function stockReport(ctx: ReportContext, from: string, to: string, opts: { itemId?: string } = {}): Promise<StockReport> {
+  const items = await Item.findAll({
+    where: { organizationId: ctx.organizationId, kind: { [Op.ne]: 'service' }, ...(opts.itemId ? { id: opts.itemId } : {}) },
+    order: [['name', 'ASC']],
+    transaction: ctx.t,
+  });
   const billed = await rentalBilled(ctx);
   // The bookings that count: out in the period (or ever, for each item's first delivery), or billed for rental up to its end.
   const lines = await sequelize.query<LineRow>(
-    `SELECT b.id AS booking_id, b.reference, b.status, b.event_start, b.delivery_start, b.pickup_end,
-            l.item_id, l.kind, l.quantity, l.unit_price_cents, l.extra_days, l.extra_day_price_cents, l.discount_bp, l.discount_cents
-       FROM bookings b JOIN booking_lines l ON l.booking_id = b.id
+    `SELECT b.id AS booking_id, b.reference, b.status, b.event_start,
+            to_char(b.event_start AT TIME ZONE :tz, 'YYYY-MM-DD') AS event_date,
+            to_char(b.delivery_start AT TIME ZONE :tz, 'YYYY-MM-DD') AS delivery_date,
+            to_char(b.pickup_end AT TIME ZONE :tz, 'YYYY-MM-DD') AS pickup_date,
+            l.item_id, l.quantity,
+            -- The line's net after its own discount, as the quote works it (shared/quote.ts): gross less
+            -- its discount (percent rounded half away from zero, plus the amount), never below zero.
+            -- The booking-wide discount falls on every line in proportion to this net, so these nets
+            -- weigh the lines' shares of the rental billed in the same proportion.
+            CASE WHEN l.kind = 'rental' THEN g.gross - least(g.gross, round(g.gross * l.discount_bp / 10000.0) + l.discount_cents) ELSE 0 END::bigint AS rental_net
+       FROM bookings b
+       JOIN booking_lines l ON l.booking_id = b.id
+       CROSS JOIN LATERAL (SELECT (l.unit_price_cents + l.extra_day_price_cents * l.extra_days) * l.quantity AS gross) g
       WHERE b.organization_id = :org
-        AND (b.status IN (:out) OR (b.id IN (:billed) AND b.event_start < :until))
-      ORDER BY b.event_start, b.reference, l.position`,
+        AND (b.status IN (:out) OR (b.event_start < :until AND b.id IN (
+              SELECT i.booking_id FROM invoices i
+               WHERE i.organization_id = :org AND i.kind IN ('deposit', 'balance') AND i.status IN ('open', 'partly_paid', 'paid'))))
+        ${opts.itemId ? 'AND b.id IN (SELECT booking_id FROM booking_lines WHERE item_id = :itemId)' : ''}`,
     {
-      replacements: { org: ctx.organizationId, out: [...OUT_STATUSES], billed: billed.size ? [...billed.keys()] : [null], until: endOfDay(to, ctx.timeZone) },
+      replacements: { org: ctx.organizationId, tz: ctx.timeZone, out: [...OUT_STATUSES], until: endOfDay(to, ctx.timeZone), itemId: opts.itemId ?? null },
       type: QueryTypes.SELECT,
       transaction: ctx.t,
     },
   );
   const byBooking = new Map<string, LineRow[]>();
-  for (const l of lines) byBooking.set(l.booking_id, [...(byBooking.get(l.booking_id) ?? []), l]);
+  for (const l of lines) {
+    const list = byBooking.get(l.booking_id);
+    if (list) list.push(l);
+    else byBooking.set(l.booking_id, [l]);
+  }
+
+  // Oldest event first, so each item's revenue runs up in time order.
+  const ordered = [...byBooking].sort(([, [a]], [, [b]]) => a.event_start.getTime() - b.event_start.getTime() || a.reference.localeCompare(b.reference));
 
   const perItem = new Map<string, StockBookingRow[]>();
   const firstDelivery = new Map<string, string>();
-  for (const [bookingId, mine] of byBooking) {
+  for (const [bookingId, mine] of ordered) {
     const b = mine[0];
-    const deliveryDate = isoDate(b.delivery_start, ctx.timeZone);
-    const pickupDate = isoDate(b.pickup_end, ctx.timeZone);
-    const eventDate = isoDate(b.event_start, ctx.timeZone);
+    const { delivery_date: deliveryDate, pickup_date: pickupDate, event_date: eventDate } = b;
     const holds = (OUT_STATUSES as readonly string[]).includes(b.status);
 
     // The rental billed, split over the rental lines by their net after discounts.
     const money = billed.get(bookingId);
     const shares = new Array<number>(mine.length).fill(0);
     if (money) {
-      const weights = mine.map((l) => (l.kind === 'rental' ? lineNet(l) : 0));
+      const weights = mine.map((l) => Number(l.rental_net));
       if (weights.some((w) => w > 0)) allocate(money.billed - money.credited, weights).forEach((c, i) => (shares[i] = c));
     }
     const byItem = new Map<string, { quantity: number; revenueCents: number }>();
@@ -159,7 +173,8 @@ export async function stockReport(ctx: ReportContext, from: string, to: string):
       utilizationBp: daysOwned > 0 ? Math.round((daysOut * 10_000) / daysOwned) : null,
       revenueInPeriodCents, revenueToDateCents, costCents, paidForItselfOn,
       payback: costCents === 0 ? 'no_cost' : paidForItselfOn ? 'paid_back' : 'not_yet',
-      bookings: bookingsShown,
+      bookingCount: bookingsShown.length,
+      bookings: opts.itemId ? bookingsShown : [],
     });
   }
   return { from, to, timeZone: ctx.timeZone, currency: ctx.currency, items: rows };

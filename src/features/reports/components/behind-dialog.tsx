@@ -187,7 +187,7 @@ export function BehindDialog({ behind, currency, timeZone, onClose }: { behind: 
       ) : behind?.kind === 'invoices' ? (
         <InvoicesBehind invoices={behind.invoices} cents={behind.cents} currency={currency} />
       ) : behind?.kind === 'bookings' ? (
-        <BookingsBehind bookings={behind.bookings} currency={currency} />
+        <BookingsBehind itemId={behind.itemId} from={behind.from} to={behind.to} currency={currency} />
       ) : behind?.kind === 'requests' ? (
         <RequestsBehind requests={behind.requests} timeZone={timeZone} />
       ) : null}

@@ -1,16 +1,38 @@
 import { Link } from 'react-router';
 import { BOOKING_STATUS_LABELS, type BookingStatus } from '@shared/schemas/bookings';
 import type { ShortfallRequest, StockBookingRow } from '@shared/schemas/reports';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Spinner } from '@/components/ui/spinner';
 import { Table, TBody, Td, Th, THead, Tr } from '@/components/ui/table';
 import { linkClasses } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
+import { errorMessage } from '@/lib/api';
 import { formatCalendarDate, formatZoned } from '@/lib/zoned-time';
+import { useStockItem } from '../api/get-stock-item';
 import { moneyIn } from './report-format';
 
 const statusText = (s: string) => BOOKING_STATUS_LABELS[s as BookingStatus] ?? s;
 
-/** The bookings behind an item's days out and revenue, each a link to its page (and its money panel). */
-export function BookingsBehind({ bookings, currency }: { bookings: StockBookingRow[]; currency: string }) {
+/** The bookings behind an item's days out and revenue over a period, fetched when opened. */
+export function BookingsBehind({ itemId, from, to, currency }: { itemId: string; from: string; to: string; currency: string }) {
+  const detail = useStockItem(itemId, { from, to });
+  if (detail.isPending) return <Spinner label="Loading the bookings…" />;
+  if (detail.isError) {
+    return (
+      <Alert tone="danger" title="The bookings could not be loaded.">
+        {errorMessage(detail.error)}{' '}
+        <Button variant="secondary" size="sm" onClick={() => void detail.refetch()}>
+          Try again
+        </Button>
+      </Alert>
+    );
+  }
+  return <BookingsTable bookings={detail.data.items[0]?.bookings ?? []} currency={currency} />;
+}
+
+/** Each booking with its days out, revenue and invoices, each a link to its page (and its money panel). */
+function BookingsTable({ bookings, currency }: { bookings: StockBookingRow[]; currency: string }) {
   const money = moneyIn(currency);
   if (bookings.length === 0) return <p className="text-sm text-canvas-700">No booking took this item out or earned from it in the period.</p>;
   return (

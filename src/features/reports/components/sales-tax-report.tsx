@@ -1,9 +1,6 @@
-import { Link } from 'react-router';
 import type { SalesTaxReport } from '@shared/schemas/reports';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Table, TBody, Td, Th, THead, Tr } from '@/components/ui/table';
-import { linkClasses } from '@/components/ui/text-link';
-import { paths } from '@/config/paths';
 import { formatCalendarDate } from '@/lib/zoned-time';
 import { EntriesFigure } from './figure-button';
 import { LedgerCheckNote } from './ledger-check';
@@ -22,7 +19,7 @@ export function SalesTaxReportView({ report: r }: { report: SalesTaxReport }) {
         </h2>
         <p className="mt-1 max-w-prose text-sm text-canvas-700">
           Tax billed on invoices issued in each month, by the booking’s rate, less the tax given back by credit notes and voided invoices: what is owed to the state
-          for {span}, as the books record it when billed. Open a figure for the entries, and the invoices for their pages.
+          for {span}, as the books record it when billed. A net figure opens its entries, each with a link to its invoice or credit note.
         </p>
       </div>
       {r.rows.length === 0 ? (
@@ -36,7 +33,7 @@ export function SalesTaxReportView({ report: r }: { report: SalesTaxReport }) {
               <Th className="text-right">Billed</Th>
               <Th className="text-right">Given back</Th>
               <Th className="text-right">Net</Th>
-              <Th>Invoices and credit notes</Th>
+              <Th className="text-right">Invoices and credit notes</Th>
             </Tr>
           </THead>
           <TBody>
@@ -51,15 +48,7 @@ export function SalesTaxReportView({ report: r }: { report: SalesTaxReport }) {
                 <Td className="text-right whitespace-nowrap">
                   <EntriesFigure cents={row.netCents} trace={row.trace} what={`sales tax at ${percentFromBp(row.taxRateBp)}, ${monthText(row.month, true)}`} />
                 </Td>
-                <Td>
-                  <span className="flex flex-wrap gap-x-2 text-sm">
-                    {row.invoices.map((i) => (
-                      <Link key={i.id} className={linkClasses} to={paths.app.invoice.getHref(i.id)}>
-                        {i.number ?? 'Draft'}
-                      </Link>
-                    ))}
-                  </span>
-                </Td>
+                <Td className="text-right tabular-nums">{row.invoiceCount}</Td>
               </Tr>
             ))}
           </TBody>

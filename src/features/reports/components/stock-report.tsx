@@ -32,15 +32,15 @@ function Payback({ row, money }: { row: StockItemRow; money: (c: number) => stri
 }
 
 /** A figure made of bookings: opens the bookings with their days out, revenue and invoices. */
-function BookingsFigure({ row, text, what }: { row: StockItemRow; text: string; what: string }) {
+function BookingsFigure({ row, text, what, from, to }: { row: StockItemRow; text: string; what: string; from: string; to: string }) {
   const { open } = useTrace();
-  if (row.bookings.length === 0) return <span className="tabular-nums">{text}</span>;
+  if (row.bookingCount === 0) return <span className="tabular-nums">{text}</span>;
   return (
     <button
       type="button"
       className="font-semibold tabular-nums text-pine-700 underline decoration-dotted underline-offset-4 hover:text-pine-900 hover:decoration-solid"
       aria-label={`${text}, ${what}: show the bookings behind it`}
-      onClick={() => open({ kind: 'bookings', title: row.item.name, bookings: row.bookings })}
+      onClick={() => open({ kind: 'bookings', title: row.item.name, itemId: row.item.id, from, to })}
     >
       {text}
     </button>
@@ -110,12 +110,12 @@ export function StockReportView({ report: r }: { report: StockReport }) {
                   </Th>
                   <Td className="text-right tabular-nums">{row.item.quantityOwned}</Td>
                   <Td className="text-right whitespace-nowrap">
-                    <BookingsFigure row={row} text={String(row.daysOut)} what={`unit-days out, ${row.item.name}`} />
+                    <BookingsFigure row={row} text={String(row.daysOut)} what={`unit-days out, ${row.item.name}`} from={r.from} to={r.to} />
                   </Td>
                   <Td className="text-right tabular-nums">{row.daysOwned}</Td>
                   <Td className="text-right tabular-nums">{utilizationText(row.utilizationBp)}</Td>
                   <Td className="text-right whitespace-nowrap">
-                    <BookingsFigure row={row} text={money(row.revenueInPeriodCents)} what={`rental revenue in the period, ${row.item.name}`} />
+                    <BookingsFigure row={row} text={money(row.revenueInPeriodCents)} what={`rental revenue in the period, ${row.item.name}`} from={r.from} to={r.to} />
                   </Td>
                   <Td className="text-right whitespace-nowrap tabular-nums">{money(row.revenueToDateCents)}</Td>
                   <Td className="text-right whitespace-nowrap tabular-nums">{money(row.costCents)}</Td>

@@ -1,11 +1,11 @@
 import { createContext, useContext } from 'react';
-import type { AgingInvoice, EntriesTrace, ShortfallRequest, StockBookingRow } from '@shared/schemas/reports';
+import type { AgingInvoice, EntriesTrace, ShortfallRequest } from '@shared/schemas/reports';
 
 /** What a figure opens: the journal entries its trace names, the invoices or bookings it is summed from, or the refused requests. */
 export type Behind =
   | { kind: 'entries'; title: string; trace: EntriesTrace; cents: number }
   | { kind: 'invoices'; title: string; invoices: AgingInvoice[]; cents: number }
-  | { kind: 'bookings'; title: string; bookings: StockBookingRow[] }
+  | { kind: 'bookings'; title: string; itemId: string; from: string; to: string }
   | { kind: 'requests'; title: string; requests: ShortfallRequest[] };
 
 export interface TraceContextValue {
