@@ -1,5 +1,6 @@
 import { useEffect, useId, useRef, type ReactNode } from 'react';
 import { Button, type ButtonVariant } from './button';
+import { keepFocusInDialog } from './dialog';
 
 interface ConfirmDialogProps {
   open: boolean;
@@ -13,7 +14,7 @@ interface ConfirmDialogProps {
   onCancel: () => void;
 }
 
-/** A modal question on the native <dialog>: focus is trapped and Escape cancels. */
+/** A modal question on the native <dialog>: focus is trapped (keepFocusInDialog) and Escape cancels. */
 export function ConfirmDialog({ open, title, children, confirmLabel, confirmVariant = 'primary', isLoading, error, onConfirm, onCancel }: ConfirmDialogProps) {
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
@@ -31,6 +32,7 @@ export function ConfirmDialog({ open, title, children, confirmLabel, confirmVari
       ref={ref}
       aria-labelledby={titleId}
       aria-describedby={children ? bodyId : undefined}
+      onKeyDown={keepFocusInDialog}
       onCancel={(event) => {
         event.preventDefault();
         if (!isLoading) onCancel();

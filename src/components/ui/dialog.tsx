@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, type ReactNode } from 'react';
+import { useEffect, useId, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import { createPortal } from 'react-dom';
 
 interface DialogProps {
@@ -13,8 +13,35 @@ interface DialogProps {
   wide?: boolean;
 }
 
+const TABBABLE = 'a[href], button, input, select, textarea, summary, iframe, [tabindex]';
+
 /**
- * A modal on the native <dialog>: focus is trapped and Escape closes it. It is put at the end of
+ * Tab from the dialog's last control goes back to its first, and Shift+Tab from the first to the
+ * last. The native modal <dialog> makes the page behind it inert but lets the focus step out to
+ * the browser's own toolbar once a round; keyboard users expect it to stay in the dialog.
+ */
+export function keepFocusInDialog(event: KeyboardEvent<HTMLDialogElement>) {
+  if (event.key !== 'Tab' || event.altKey || event.ctrlKey || event.metaKey) return;
+  const dialog = event.currentTarget;
+  const controls = [...dialog.querySelectorAll<HTMLElement>(TABBABLE)].filter(
+    (el) => el.tabIndex >= 0 && !(el as HTMLButtonElement).disabled && el.getClientRects().length > 0 && !el.closest('[inert]'),
+  );
+  if (controls.length === 0) return;
+  const first = controls[0];
+  const last = controls[controls.length - 1];
+  const active = document.activeElement;
+  if (event.shiftKey && (active === first || active === dialog)) {
+    event.preventDefault();
+    last.focus();
+  } else if (!event.shiftKey && active === last) {
+    event.preventDefault();
+    first.focus();
+  }
+}
+
+/**
+ * A modal on the native <dialog>: focus is trapped (keepFocusInDialog) and Escape closes it; on
+ * closing, the browser puts the focus back on what opened it. It is put at the end of
  * <body>, so a form inside it never sits inside the page's own form.
  */
 export function Dialog({ open, title, children, footer, onClose, busy, wide }: DialogProps) {
@@ -32,6 +59,7 @@ export function Dialog({ open, title, children, footer, onClose, busy, wide }: D
     <dialog
       ref={ref}
       aria-labelledby={titleId}
+      onKeyDown={keepFocusInDialog}
       onCancel={(event) => {
         event.preventDefault();
         if (!busy) onClose();
