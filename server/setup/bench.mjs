@@ -110,10 +110,10 @@ function table(results) {
   ].join('\n');
 }
 
-function machine(pgVersion) {
+function machine(pgVersion, load) {
   const cpus = os.cpus();
   return `${cpus.length} cores (${cpus[0]?.model.trim() ?? 'unknown CPU'}), ${(os.totalmem() / 2 ** 30).toFixed(1)} GB memory, ` +
-    `${os.type()} ${os.release()}, Node ${process.version}, PostgreSQL ${pgVersion}`;
+    `${os.type()} ${os.release()}, Node ${process.version}, PostgreSQL ${pgVersion}; load average ${load} while it ran`;
 }
 
 function updateReadme(section) {
@@ -137,6 +137,7 @@ try {
   ensureBenchClient();
   // The app serves dist/ in production: built only when missing, so a browser test serving it is never disturbed.
   if (!fs.existsSync(path.join(root, 'dist', 'index.html'))) ensureClientBuild();
+  const loadBefore = os.loadavg()[0];
   const url = await startApp();
   say(`The app runs on ${url} (pid ${app.pid}); running the figures...`);
   const resultsFile = path.join(dataDir, 'bench-results.json');
@@ -153,7 +154,9 @@ try {
   const data = generated
     ? `The data: one company with ${Object.entries(generated.counts).map(([k, v]) => `${v.toLocaleString('en-US')} ${k.replace(/_/g, ' ')}`).join(', ')}, generated in ${generated.seconds} s.`
     : '';
-  const section = [`Measured on ${when} on ${machine(pgVersion)}. ${data}`, '', table(results)].join('\n');
+  // What else the machine was doing: the ratios hold up better than the times, not perfectly.
+  const load = `${loadBefore.toFixed(1)} at the start, ${os.loadavg()[0].toFixed(1)} at the end`;
+  const section = [`Measured on ${when} on ${machine(pgVersion, load)}. ${data}`, '', table(results)].join('\n');
   console.log('');
   console.log(table(results));
   console.log('');

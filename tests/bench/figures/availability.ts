@@ -102,8 +102,8 @@ export async function availabilityFigure(ctx: BenchContext): Promise<Result> {
   const plan = nodes.map((n) => `${n['Node Type']}${n['Index Name'] ? ` ${n['Index Name']}` : n['Relation Name'] ? ` ${n['Relation Name']}` : ''}`).join(' > ');
   return {
     key: 'availability',
-    figure: `Availability service, 30 lines over ${req.reference}'s window (${req.overlapping} holding bookings overlap); plan: ${plan}`,
-    measured: `service ${ms(r.subject)} vs SQL ${ms(r.baseline)} = ${times(r.ratio)} (through the route ${ms(viaRoute.subject)}); booking_lines ${seqOnLines ? 'SEQ SCAN' : indexOnLines ? 'by index' : 'not read by index'}${agrees ? '' : ' (answers differ!)'}`,
+    figure: `Availability service, 30 lines over ${req.reference}'s window (${req.overlapping} holding bookings overlap)`,
+    measured: `service ${ms(r.subject)} vs SQL ${ms(r.baseline)} = ${times(r.ratio)} (through the route ${ms(viaRoute.subject)}); booking_lines ${seqOnLines ? 'SEQ SCAN' : indexOnLines ? 'by index' : 'not read by index'}${agrees ? '' : ' (answers differ!)'}; plan: ${plan}`,
     target: '≤ 2×, index on booking_lines, no seq scan',
     pass: agrees && r.ratio <= 2 && !seqOnLines && indexOnLines,
     notes: [
