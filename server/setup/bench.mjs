@@ -113,7 +113,7 @@ function table(results) {
 function machine(pgVersion, load) {
   const cpus = os.cpus();
   return `${cpus.length} cores (${cpus[0]?.model.trim() ?? 'unknown CPU'}), ${(os.totalmem() / 2 ** 30).toFixed(1)} GB memory, ` +
-    `${os.type()} ${os.release()}, Node ${process.version}, PostgreSQL ${pgVersion}; load average ${load} while it ran`;
+    `${os.type()} ${os.release()}, Node ${process.version}, PostgreSQL ${pgVersion}; load average ${load}`;
 }
 
 function updateReadme(section) {
@@ -155,7 +155,7 @@ try {
     ? `The data: one company with ${Object.entries(generated.counts).map(([k, v]) => `${v.toLocaleString('en-US')} ${k.replace(/_/g, ' ')}`).join(', ')}, generated in ${generated.seconds} s.`
     : '';
   // What else the machine was doing: the ratios hold up better than the times, not perfectly.
-  const load = `${loadBefore.toFixed(1)} at the start, ${os.loadavg()[0].toFixed(1)} at the end`;
+  const load = `${loadBefore.toFixed(1)} when the figures started and ${os.loadavg()[0].toFixed(1)} when they ended`;
   const section = [`Measured on ${when} on ${machine(pgVersion, load)}. ${data}`, '', table(results)].join('\n');
   console.log('');
   console.log(table(results));
