@@ -5,6 +5,13 @@ import { logger } from '../logger';
 
 /** The one JSON error shape: { error: { code, message, fields? } }. Internals never leave. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
+  // A stream (an export, a PDF) that fails after its first bytes cannot turn into a JSON answer:
+  // log it and cut the connection, so the client sees an incomplete download, not a corrupt file.
+  if (res.headersSent) {
+    logger.error({ err, url: req.originalUrl, method: req.method }, 'request failed after the response started');
+    res.destroy(err instanceof Error ? err : undefined);
+    return;
+  }
   if (err instanceof HttpError) {
     const retry = (err as HttpError & { retryAfterSeconds?: number }).retryAfterSeconds;
     if (retry) res.setHeader('Retry-After', String(retry));
