@@ -41,10 +41,13 @@ function BookingsTable({ bookings, currency }: { bookings: StockBookingRow[]; cu
         <THead>
           <Tr>
             <Th>Booking</Th>
-            <Th>Event</Th>
             <Th>Out</Th>
-            <Th className="text-right">Quantity</Th>
-            <Th className="text-right">Unit-days in the period</Th>
+            <Th className="text-right">Units</Th>
+            <Th className="text-right">
+              <abbr title="Units × days out inside the period" className="no-underline">
+                Unit-days
+              </abbr>
+            </Th>
             <Th className="text-right">Rental revenue</Th>
           </Tr>
         </THead>
@@ -57,16 +60,16 @@ function BookingsTable({ bookings, currency }: { bookings: StockBookingRow[]; cu
                 </Link>
                 <span className="block text-xs font-normal text-canvas-700">{statusText(b.status)}</span>
               </Th>
-              <Td className="whitespace-nowrap">{formatCalendarDate(b.eventDate)}</Td>
               <Td className="whitespace-nowrap">
                 {formatCalendarDate(b.deliveryDate)} – {formatCalendarDate(b.pickupDate)}
+                <span className="block text-xs text-canvas-700">Event {formatCalendarDate(b.eventDate)}</span>
               </Td>
               <Td className="text-right tabular-nums">{b.quantity}</Td>
               <Td className="text-right tabular-nums">{b.daysOutInPeriod}</Td>
-              <Td className="text-right whitespace-nowrap tabular-nums">
-                {money(b.revenueCents)}
+              <Td className="text-right tabular-nums">
+                <span className="whitespace-nowrap">{money(b.revenueCents)}</span>
                 {b.invoices.length ? (
-                  <span className="flex flex-wrap justify-end gap-x-2 text-xs">
+                  <span className="flex flex-wrap justify-end gap-x-2 text-xs whitespace-nowrap">
                     {b.invoices.map((i) => (
                       <Link key={i.id} className={linkClasses} to={paths.app.invoice.getHref(i.id)}>
                         {i.number ?? 'Draft'}

@@ -105,44 +105,50 @@ export function RevenueReportView({ report: r }: { report: RevenueReport }) {
             </Chip>
           </div>
         </div>
-        <Table caption={`Revenue by account and month, ${year}`}>
-          <THead>
-            <Tr>
-              <Th>Account</Th>
-              {MONTHS.map((m) => (
-                <Th key={m} className="text-right">
-                  <abbr title={longMonth(m)} className="no-underline">
-                    {shortMonth(m)}
-                  </abbr>
-                </Th>
-              ))}
-              <Th className="text-right">{year}</Th>
-            </Tr>
-          </THead>
-          <TBody>
-            {r.accounts.map((a) => {
-              const values = shown === 'this' ? a.thisYear : a.lastYear;
-              const traces = shown === 'this' ? a.thisYearTraces : a.lastYearTraces;
-              return (
-                <Tr key={a.account.id}>
-                  <Th scope="row" className="py-2">
-                    <span className="font-mono text-xs text-canvas-700">{a.account.code}</span> {a.account.name}
+        {r.accounts.every((a) => (shown === 'this' ? a.thisYear : a.lastYear).every((v) => v === 0)) ? (
+          <p className="rounded-md border border-dashed border-canvas-300 bg-canvas-50 px-4 py-3 text-sm text-canvas-700">
+            Nothing was posted to the revenue accounts in {year}.
+          </p>
+        ) : (
+          <Table caption={`Revenue by account and month, ${year}`}>
+            <THead>
+              <Tr>
+                <Th>Account</Th>
+                {MONTHS.map((m) => (
+                  <Th key={m} className="text-right">
+                    <abbr title={longMonth(m)} className="no-underline">
+                      {shortMonth(m)}
+                    </abbr>
                   </Th>
-                  {MONTHS.map((m) => (
-                    <Td key={m} className={cn('py-2 text-right whitespace-nowrap', values[m] === 0 && 'text-canvas-500')}>
-                      {values[m] === 0 ? (
-                        <span className="tabular-nums">{money(0)}</span>
-                      ) : (
-                        <EntriesFigure cents={values[m]} trace={traces[m]} what={`${a.account.name}, ${longMonth(m)} ${year}`} />
-                      )}
-                    </Td>
-                  ))}
-                  <Td className="py-2 text-right font-semibold whitespace-nowrap tabular-nums">{money(shown === 'this' ? a.thisYearTotalCents : a.lastYearTotalCents)}</Td>
-                </Tr>
-              );
-            })}
-          </TBody>
-        </Table>
+                ))}
+                <Th className="text-right">{year}</Th>
+              </Tr>
+            </THead>
+            <TBody>
+              {r.accounts.map((a) => {
+                const values = shown === 'this' ? a.thisYear : a.lastYear;
+                const traces = shown === 'this' ? a.thisYearTraces : a.lastYearTraces;
+                return (
+                  <Tr key={a.account.id}>
+                    <Th scope="row" className="py-2">
+                      <span className="font-mono text-xs text-canvas-700">{a.account.code}</span> {a.account.name}
+                    </Th>
+                    {MONTHS.map((m) => (
+                      <Td key={m} className={cn('py-2 text-right whitespace-nowrap', values[m] === 0 && 'text-canvas-600')}>
+                        {values[m] === 0 ? (
+                          <span className="tabular-nums">{money(0)}</span>
+                        ) : (
+                          <EntriesFigure cents={values[m]} trace={traces[m]} what={`${a.account.name}, ${longMonth(m)} ${year}`} />
+                        )}
+                      </Td>
+                    ))}
+                    <Td className="py-2 text-right font-semibold whitespace-nowrap tabular-nums">{money(shown === 'this' ? a.thisYearTotalCents : a.lastYearTotalCents)}</Td>
+                  </Tr>
+                );
+              })}
+            </TBody>
+          </Table>
+        )}
       </section>
       <LedgerCheckNote check={r.reconciliation.thisYear} measure={`revenue less refunds and allowances in ${r.year}`} testId="revenue-check" />
       <LedgerCheckNote check={r.reconciliation.lastYear} measure={`revenue less refunds and allowances in ${last}`} />
