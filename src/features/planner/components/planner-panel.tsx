@@ -82,10 +82,10 @@ export function PlannerPanel({ guests, seating, afterDark, openSided, onOpenSide
                   <li key={rec.itemId} className="rounded-md border border-canvas-200 p-3">
                     <div className="flex flex-wrap items-start justify-between gap-2">
                       <div>
-                        <h4 className="font-semibold text-canvas-900">
+                        <h3 className="font-semibold text-canvas-900">
                           {i === 0 ? 'Best fit: ' : 'Also fits: '}
                           {rec.name}
-                        </h4>
+                        </h3>
                         <p className="text-sm text-canvas-700">
                           {rec.widthFt} x {rec.lengthFt} ft, {rec.areaSqFt} sq ft, holds {rec.capacity} guests
                         </p>
@@ -116,9 +116,9 @@ export function PlannerPanel({ guests, seating, afterDark, openSided, onOpenSide
             )}
             {result.areaSqFt > 0 ? <Figures result={result} /> : null}
             <section aria-labelledby="cautions-heading" className="rounded-md border border-ochre-200 bg-ochre-50 p-4">
-              <h4 id="cautions-heading" className="font-semibold text-ochre-800">
+              <h3 id="cautions-heading" className="font-semibold text-ochre-800">
                 Cautions
-              </h4>
+              </h3>
               <p className="mt-1 text-sm text-ochre-800">
                 These figures inform, they do not approve. The local fire code, the authority having jurisdiction and the tent maker’s instructions come first.
               </p>

@@ -56,7 +56,7 @@ export function QuotePanel({ result, currency, taxExempt, saved }: { result: Quo
       </dl>
       {result.schedule.length ? (
         <div>
-          <h4 className="mb-1 font-semibold text-canvas-900">Payment schedule</h4>
+          <h3 className="mb-1 font-semibold text-canvas-900">Payment schedule</h3>
           <ul className="space-y-1">
             {result.schedule.map((s) => (
               <li key={s.kind} className="flex justify-between gap-4">
