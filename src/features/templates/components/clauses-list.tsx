@@ -20,10 +20,10 @@ export function ClausesList({ clauses, canEdit, busy, onEdit, onMove, onDelete }
         <li key={c.id} aria-label={c.title} className={`rounded-lg border bg-white p-4 shadow-sm ${c.active ? 'border-canvas-200' : 'border-dashed border-canvas-300 bg-canvas-50'}`}>
           <div className="flex flex-wrap items-start justify-between gap-3">
             <div className="min-w-0">
-              <h3 className="font-semibold text-canvas-900">
+              <h2 className="font-semibold text-canvas-900">
                 <span className="mr-2 text-canvas-600 tabular-nums">{i + 1}.</span>
                 {c.title}
-              </h3>
+              </h2>
               <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-canvas-700">
                 <code className="font-mono text-xs">{c.key}</code>
                 <span className="text-canvas-500" aria-hidden="true">
