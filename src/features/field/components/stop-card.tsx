@@ -5,8 +5,12 @@ import { paths } from '@/config/paths';
 import { ANCHORING_LABELS, SEATING_WORDS, SURFACE_LABELS, stopState, timeWindow } from './labels';
 import { MapLink } from './map-link';
 
-/** One delivery or pickup on the day sheet, readable on a phone and on paper. */
-export function StopCard({ stop, timeZone, showOpen = true }: { stop: FieldStop; timeZone: string; showOpen?: boolean }) {
+/**
+ * One delivery or pickup on the day sheet, readable on a phone and on paper. Its heading is an h3
+ * under the day sheet's h2 groups, and an h2 on the stop's own page (`headingLevel`).
+ */
+export function StopCard({ stop, timeZone, showOpen = true, headingLevel = 3 }: { stop: FieldStop; timeZone: string; showOpen?: boolean; headingLevel?: 2 | 3 }) {
+  const Heading = headingLevel === 2 ? 'h2' : 'h3';
   const state = stopState(stop);
   const kind = stop.stop === 'delivery' ? 'Delivery' : 'Pickup';
   const items = stop.items.filter((i) => i.quantity > 0);
@@ -15,9 +19,9 @@ export function StopCard({ stop, timeZone, showOpen = true }: { stop: FieldStop;
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div>
           <p className="text-sm font-semibold text-canvas-700">{timeWindow(stop.windowStart, stop.windowEnd, timeZone)}</p>
-          <h3 id={`stop-${stop.bookingId}-${stop.stop}`} className="text-lg font-semibold text-canvas-900">
+          <Heading id={`stop-${stop.bookingId}-${stop.stop}`} className="text-lg font-semibold text-canvas-900">
             {kind} {stop.reference}: {stop.customer.name}
-          </h3>
+          </Heading>
         </div>
         <div className="flex flex-wrap gap-1">
           {stop.mine ? <Badge tone="positive">Your stop</Badge> : null}

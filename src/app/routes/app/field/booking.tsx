@@ -40,7 +40,7 @@ export default function FieldBookingRoute() {
               description={`Delivery ${formatZoned(b.delivery.windowStart, b.timeZone)}; pickup ${formatZoned(b.pickup.windowStart, b.timeZone)}.`}
             />
             <div className="space-y-6">
-              <StopCard stop={b.delivery} timeZone={b.timeZone} showOpen={false} />
+              <StopCard stop={b.delivery} timeZone={b.timeZone} showOpen={false} headingLevel={2} />
               <nav aria-label="This stop" className="flex flex-wrap gap-2">
                 <Link className={buttonClasses('secondary')} to={paths.app.fieldSiteCheck.getHref(id)}>
                   Site checklist
