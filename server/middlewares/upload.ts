@@ -19,7 +19,9 @@ export function singleFile(maxBytes: number) {
         }
         return next(new HttpError(400, 'validation', 'Send one file in a field named "file".', { file: err.message }));
       }
-      if (err) return next(err);
+      // Anything else comes from reading the form itself (busboy: a malformed part header, a body
+      // cut short, no boundary): the request is at fault, not the server.
+      if (err) return next(new HttpError(400, 'malformed_upload', 'The upload arrived garbled. Choose the file and send it again.', { file: 'The upload arrived garbled.' }));
       if (!req.file) return next(new HttpError(400, 'validation', 'Choose a file to upload.', { file: 'Choose a file.' }));
       next();
     });
