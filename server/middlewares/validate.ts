@@ -14,12 +14,17 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
 
 type Source = 'body' | 'query' | 'params';
 
+/** Half of a UTF-16 surrogate pair without its other half: JSON allows it, UTF-8 cannot encode it. */
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+const unstorable = (s: string) => s.includes('\u0000') || LONE_SURROGATE.test(s);
+
 /**
- * The path of the first text (or key) holding U+0000: PostgreSQL cannot store it in text or JSONB.
+ * The path of the first text (or key) PostgreSQL cannot store: a null character, refused by text
+ * and JSONB alike, or a lone surrogate, refused by JSONB (and silently replaced in text).
  * A loop with links to the parent, not recursion or copied paths: JSON.parse takes bodies nested
  * far deeper than the call stack, and the walk stays linear in the size of the body.
  */
-function nullCharacterAt(input: unknown): string[] | null {
+function unstorableTextAt(input: unknown): string[] | null {
   type Step = { value: unknown; key: string; parent: Step | null };
   const pathOf = (step: Step | null): string[] => {
     const path: string[] = [];
@@ -29,11 +34,11 @@ function nullCharacterAt(input: unknown): string[] | null {
   const stack: Step[] = [{ value: input, key: '', parent: null }];
   while (stack.length) {
     const step = stack.pop()!;
-    if (typeof step.value === 'string' && step.value.includes('\u0000')) return pathOf(step);
+    if (typeof step.value === 'string' && unstorable(step.value)) return pathOf(step);
     if (step.value && typeof step.value === 'object') {
       for (const [key, value] of Object.entries(step.value)) {
         const child = { value, key, parent: step };
-        if (key.includes('\u0000')) return pathOf(child);
+        if (unstorable(key)) return pathOf(child);
         stack.push(child);
       }
     }
@@ -48,11 +53,11 @@ function nullCharacterAt(input: unknown): string[] | null {
 export function validate(schema: z.ZodType, source: Source = 'body') {
   return (req: Request, res: Response, next: NextFunction) => {
     const input = source === 'body' ? (req.body ?? {}) : req[source];
-    // A null character would pass any zod string and then fail in the database as a 500.
-    const nul = nullCharacterAt(input);
-    if (nul) {
-      const message = 'This text holds an invisible null character (\\0), which cannot be saved. Remove it and try again.';
-      return next(badRequest(message, { [nul.length ? nul.join('.') : '_']: message }));
+    // Such text would pass any zod string and then fail in the database as a 500.
+    const bad = unstorableTextAt(input);
+    if (bad) {
+      const message = 'This text holds a character that cannot be saved (a null character, or half of an emoji). Remove it and try again.';
+      return next(badRequest(message, { [bad.length ? bad.join('.') : '_']: message }));
     }
     const result = schema.safeParse(input);
     if (!result.success) {
