@@ -3,10 +3,10 @@ import { Op } from 'sequelize';
 import {
   EXPORT_FORMATS, ExportHistoryQuery, ExportKindParams, ExportRangeQuery, exportFilename, TrialBalanceExportQuery, type ExportCount, type ExportKind, type ExportRunRow,
 } from '../../../shared/schemas/exports';
-import type { ListQuery } from '../../../shared/schemas/common';
+import { IdParams, type ListQuery } from '../../../shared/schemas/common';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { fieldErrors, parsed, validate } from '../../middlewares/validate';
-import { badRequest } from '../../errors';
+import { badRequest, notFound } from '../../errors';
 import { ExportRun, User } from '../../models';
 import { authorize } from '../../policies';
 import { countCsvRows, writeCsv, type CsvExport, type ExportScope } from '../../services/exports/csv';
@@ -15,7 +15,7 @@ import { invoiceLinesCsv } from '../../services/exports/invoiceLines';
 import { journalCsv, trialBalanceCsv } from '../../services/exports/journal';
 import { paidInvoicesCsv } from '../../services/exports/paidInvoices';
 import { paymentsCsv } from '../../services/exports/payments';
-import { rangeInstants, runExport, type ExportWriter } from '../../services/exports/run';
+import { markCancelled, rangeInstants, runExport, type ExportWriter } from '../../services/exports/run';
 import { countPdfFiles, countUblFiles, writePdfZip, writeUblZip } from '../../services/exports/zip';
 
 export const exportsRouter = Router();
@@ -76,6 +76,18 @@ exportsRouter.get('/history', authenticate, validate(ExportHistoryQuery, 'query'
     filename: exportFilename(r.kind, r.fromDate, r.toDate),
   }));
   res.json({ data, total: count });
+});
+
+/**
+ * The screen cancelled a download it had started (the X-Export-Run header named the run): the
+ * history says cancelled even when the server had already sent everything. Only the person who
+ * ran it, in their own company.
+ */
+exportsRouter.post('/history/:id/cancel', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user } = auth(req);
+  authorize(user, 'export', 'run');
+  if (!(await markCancelled(parsed<{ id: string }>(res, 'params').id, user))) throw notFound('That export');
+  res.status(204).end();
 });
 
 /**

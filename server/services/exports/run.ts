@@ -41,7 +41,7 @@ export function rangeInstants(from: string | null, to: string, timeZone: string)
  * Runs one export as a download: a history row, the download headers, a dedicated connection in a
  * read-only REPEATABLE READ snapshot (every query of the export sees the same books), the writer
  * streaming into the response with back-pressure, and the history row closed as ok, failed or
- * aborted. The connection goes back to the pool on every path; after an error or an abort it is
+ * aborted before the response ends. The connection goes back to the pool on every path; after an error or an abort it is
  * closed rather than reused, since a cursor may still be open on it.
  */
 export async function runExport(
@@ -77,7 +77,9 @@ export async function runExport(
         done(null, chunk);
       },
     });
-    const delivered = pipeline(counter, res);
+    // The response stays open after the last byte until the history row says finished, so a
+    // screen that refreshes the history when its download ends reads the final answer.
+    const delivered = pipeline(counter, res, { end: false });
     // A failure on either side destroys both pipelines; the other promise's rejection is the same failure.
     delivered.catch(() => {});
     await opts.write(
@@ -98,10 +100,12 @@ export async function runExport(
   const aborted = clientGone || (failure !== null && res.destroyed && !res.writableFinished && isPrematureClose(failure));
   const status = failure === null && !clientGone ? 'ok' : aborted ? 'aborted' : 'failed';
   if (status === 'failed') logger.error({ err: failure, exportRunId: run.id, kind }, 'export failed');
-  await run.update({
-    status, rowCount: rows, byteCount: bytes, finishedAt: new Date(),
-    error: status === 'failed' ? 'The export stopped on a server error; the file is incomplete.' : null,
-  });
+  // The person may already have cancelled it from the screen (markCancelled): that stays.
+  const [closed] = await ExportRun.update(
+    { status, rowCount: rows, byteCount: bytes, finishedAt: new Date(), error: status === 'failed' ? 'The export stopped on a server error; the file is incomplete.' : null },
+    { where: { id: run.id, status: 'running' } },
+  );
+  if (closed === 0) await ExportRun.update({ rowCount: rows, byteCount: bytes, finishedAt: new Date() }, { where: { id: run.id } });
   if (status === 'failed' && !res.headersSent) {
     // Nothing was sent yet: the usual error answer can still go out.
     res.removeHeader('Content-Disposition');
@@ -109,9 +113,25 @@ export async function runExport(
   }
   // Mid-stream, the only honest signal left is a cut connection: the browser reports a failed download.
   if (status === 'failed' && !res.destroyed) res.destroy();
+  else if (!res.destroyed && !res.writableEnded) res.end();
 }
 
 function isPrematureClose(err: unknown) {
   const code = (err as { code?: string } | null)?.code;
   return code === 'ERR_STREAM_PREMATURE_CLOSE' || code === 'ECONNRESET' || code === 'EPIPE' || code === 'ERR_STREAM_DESTROYED';
+}
+
+/**
+ * The screen's Cancel after the response began: the server may already have written the whole
+ * file into the network's buffers and closed the run as finished, while the browser threw it
+ * away. The person who ran it says so, and the history tells the truth: cancelled, nothing saved.
+ * A failed run stays failed. Answers whether a run of this person's was found.
+ */
+export async function markCancelled(runId: string, user: User): Promise<boolean> {
+  const run = await ExportRun.findOne({ where: { id: runId, organizationId: user.organizationId, userId: user.id } });
+  if (!run) return false;
+  if (run.status === 'running' || run.status === 'ok') {
+    await ExportRun.update({ status: 'aborted', error: null }, { where: { id: run.id, status: ['running', 'ok'] } });
+  }
+  return true;
 }

@@ -508,6 +508,35 @@ describe('export history', () => {
     expect((await bookkeeper.get('/api/exports/history?page=0')).body.error.fields.page).toBe('Pages start at 1.');
   });
 
+  it('the screen’s Cancel marks the person’s own run cancelled even after the server finished it; a failed run stays failed; others get 404 or 403', async () => {
+    const s = await buildCompany();
+    const bookkeeper = await as(s.bookkeeper);
+    const owner = await as(s.owner);
+    const done = await download(bookkeeper, `/api/exports/journal.csv?${range('2026-01-01', '2026-01-31')}`);
+    const runId = done.res.headers['x-export-run'] as string;
+    // The history row closes just after the last byte.
+    await expect.poll(async () => (await ExportRun.findByPk(runId))!.status).toBe('ok');
+    // Not the bookkeeper's run: the owner of the same company, the crew, another company's bookkeeper, a made-up id.
+    expect((await owner.post(`/api/exports/history/${runId}/cancel`)).status).toBe(404);
+    expect((await (await as(s.crew)).post(`/api/exports/history/${runId}/cancel`)).status).toBe(403);
+    const other = await buildCompany();
+    expect((await (await as(other.bookkeeper)).post(`/api/exports/history/${runId}/cancel`)).status).toBe(404);
+    expect((await bookkeeper.post('/api/exports/history/00000000-0000-4000-8000-000000000000/cancel')).status).toBe(404);
+    expect((await bookkeeper.post('/api/exports/history/not-an-id/cancel')).status).toBe(400);
+    expect((await ExportRun.findByPk(runId))!.status).toBe('ok');
+    const cancelled = await bookkeeper.post(`/api/exports/history/${runId}/cancel`);
+    expect(cancelled.status).toBe(204);
+    const row = (await ExportRun.findByPk(runId))!;
+    expect(row.status).toBe('aborted');
+    // What was sent stays on the record.
+    expect(Number(row.byteCount)).toBe(done.bytes.length);
+    const failed = await ExportRun.create({ organizationId: s.organization.id, userId: s.bookkeeper.id, kind: 'journal', fromDate: '2026-01-01', toDate: '2026-01-31', status: 'failed', finishedAt: new Date() });
+    expect((await bookkeeper.post(`/api/exports/history/${failed.id}/cancel`)).status).toBe(204);
+    expect((await ExportRun.findByPk(failed.id))!.status).toBe('failed');
+    const history = await bookkeeper.get('/api/exports/history');
+    expect(history.body.data.find((r: { id: string }) => r.id === runId).status).toBe('aborted');
+  });
+
   it('a download the browser stops half way is marked aborted, with what was sent so far', async () => {
     const s = await buildCompany();
     // A long journal: 20,000 balanced entries with long memos (about 20 MB of CSV), more than the sockets between here and the server hold.

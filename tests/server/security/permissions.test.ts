@@ -16,7 +16,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../../server/app';
 import { env } from '../../../server/env';
 import { startMailSink } from '../../../server/fakes/mailSink';
-import { Organization } from '../../../server/models';
+import { ExportRun, Organization } from '../../../server/models';
 import { bookingBody, TEST_PASSWORD } from '../../factories';
 import { uniqueEmail } from '../../support';
 import { send, securityFixture, siteCheck, WHO, type SecurityFixture, type Upload, type Who } from './fixture';
@@ -229,6 +229,9 @@ const MATRIX: Record<string, Row> = {
 
   // --- exports: the bookkeeper's and the owner's ------------------------------------------------------------
   'GET /api/exports/history':                    row('401  401  403  403  ok   ok   ok'),
+  'POST /api/exports/history/:id/cancel':        row('401  401  403  403  ok   404  404', { // only the person who ran the download
+    params: async (f) => ({ id: (await ExportRun.create({ organizationId: f.org, userId: f.a.bookkeeper.id, kind: 'journal', fromDate: '2031-01-01', toDate: '2031-01-31' })).id }),
+  }),
   'GET /api/exports/:kind/count':                row('401  401  403  403  ok   ok   ok', { params: () => ({ kind: 'paid-invoices' }), query: range }),
   'GET /api/exports/trial-balance.csv':          row('401  401  403  403  ok   ok   ok', { query: () => ({ at: '2031-12-31' }) }),
   'GET /api/exports/paid-invoices.csv':          row('401  401  403  403  ok   ok   ok', { query: range }),

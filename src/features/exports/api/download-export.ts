@@ -2,7 +2,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { EXPORT_FORMATS, exportFilename, exportUrl, type ExportKind } from '@shared/schemas/exports';
 import type { ApiErrorBody } from '@shared/schemas/errors';
-import { ApiError } from '@/lib/api';
+import { api, ApiError } from '@/lib/api';
 import { exportCountQueryOptions } from './get-export-count';
 import { exportsBaseKey } from './get-export-history';
 
@@ -46,10 +46,16 @@ function filenameOf(response: Response, fallback: string) {
  * Downloads one export as a stream: counts what to expect, reads the response body chunk by
  * chunk (fetch + ReadableStream) reporting rows or bytes as they arrive, then hands the file to
  * the browser to save (a Blob, an object URL and a download link). `signal` cancels at any point;
- * the server then marks the export as cancelled in the history.
+ * the hook then tells the server, so the history says cancelled even if every byte had been sent.
  */
 export async function downloadExport(
-  opts: { kind: ExportKind; from: string; to: string; signal: AbortSignal; count: () => Promise<{ rows: number; bytes: number | null }>; onProgress: (p: DownloadProgress) => void },
+  opts: {
+    kind: ExportKind; from: string; to: string; signal: AbortSignal;
+    count: () => Promise<{ rows: number; bytes: number | null }>;
+    onProgress: (p: DownloadProgress) => void;
+    /** The server's history row for this download (the X-Export-Run header), once the answer begins. */
+    onRun?: (runId: string) => void;
+  },
 ): Promise<SavedFile> {
   const { kind, from, to, signal } = opts;
   const expected = await opts.count();
@@ -64,6 +70,8 @@ export async function downloadExport(
     throw new ApiError(0, 'network', 'Could not reach Guyline. Check your connection and try again.');
   }
   if (!response.ok || !response.body) throw await downloadError(response);
+  const runId = response.headers.get('X-Export-Run');
+  if (runId) opts.onRun?.(runId);
 
   const reader = response.body.getReader();
   const chunks: Uint8Array[] = [];
@@ -107,6 +115,9 @@ export type DownloadState =
   | { status: 'cancelled' }
   | { status: 'failed'; error: ApiError };
 
+/** Marks a started download as cancelled in the history; a failure here only leaves the history as the server saw it. */
+const reportCancelled = (runId: string) => api.post<void>(`/api/exports/history/${encodeURIComponent(runId)}/cancel`).catch(() => undefined);
+
 /** One export card's download: start, progress, cancel; the history refreshes when it ends. */
 export function useExportDownload(kind: ExportKind) {
   const queryClient = useQueryClient();
@@ -122,6 +133,7 @@ export function useExportDownload(kind: ExportKind) {
       const mine = new AbortController();
       controller.current = mine;
       setState({ status: 'counting' });
+      let runId: string | null = null;
       try {
         const file = await downloadExport({
           kind, from, to, signal: mine.signal,
@@ -129,11 +141,16 @@ export function useExportDownload(kind: ExportKind) {
           onProgress: (progress) => {
             if (!mine.signal.aborted) setState({ status: 'downloading', progress });
           },
+          onRun: (id) => {
+            runId = id;
+          },
         });
         if (!mine.signal.aborted) setState({ status: 'saved', file });
       } catch (error) {
-        if (mine.signal.aborted || (error instanceof DOMException && error.name === 'AbortError')) setState({ status: 'cancelled' });
-        else setState({ status: 'failed', error: error instanceof ApiError ? error : new ApiError(0, 'error', 'The download did not work. Try again in a moment.') });
+        if (mine.signal.aborted || (error instanceof DOMException && error.name === 'AbortError')) {
+          setState({ status: 'cancelled' });
+          if (runId) await reportCancelled(runId);
+        } else setState({ status: 'failed', error: error instanceof ApiError ? error : new ApiError(0, 'error', 'The download did not work. Try again in a moment.') });
       } finally {
         if (controller.current === mine) controller.current = null;
         void queryClient.invalidateQueries({ queryKey: exportsBaseKey });
