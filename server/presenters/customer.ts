@@ -32,10 +32,10 @@ export function presentCustomer(
     billingPostalCode: customer.billingPostalCode,
     notes: customer.notes,
     taxExempt: customer.taxExempt,
-    exemptionCertificate: extra.certificate ? presentFile(extra.certificate) : null,
+    exemptionCertificate: extra.certificate && can(actor, 'customer', 'readCertificate', customer) ? presentFile(extra.certificate) : null,
     bookingCount: extra.bookingCount,
     createdAt: customer.createdAt.toISOString(),
     updatedAt: customer.updatedAt.toISOString(),
-    can: { update: can(actor, 'customer', 'update', customer) },
+    can: { update: can(actor, 'customer', 'update', customer), readCertificate: can(actor, 'customer', 'readCertificate', customer) },
   };
 }

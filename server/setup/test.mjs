@@ -11,7 +11,8 @@ const chromium = ensureChromium();
 // Tools from outside the project that the document tests check PDFs with.
 ensureDebianPackages({ qpdf: '/usr/bin/qpdf', 'poppler-utils': '/usr/bin/pdffonts' });
 // A cluster and port of its own: tests never touch the `npm start` database and can run beside it.
-const pg = startCluster({ name: 'pg-test', port: Number(process.env.GUYLINE_TEST_PG_PORT ?? 54339), anyPort: true });
+// GUYLINE_TEST_CLUSTER names another cluster (a folder under .data), so two runs in one tree keep apart.
+const pg = startCluster({ name: process.env.GUYLINE_TEST_CLUSTER ?? 'pg-test', port: Number(process.env.GUYLINE_TEST_PG_PORT ?? 54339), anyPort: true });
 
 let status = 1;
 try {

@@ -43,7 +43,8 @@ export interface CustomerRow extends CustomerValues {
   updatedAt: string;
   exemptionCertificate: StoredFileRef | null;
   bookingCount: number;
-  can: { update: boolean };
+  /** readCertificate: the tax exemption certificate is a tax record, for the office, the bookkeeper and the owner (not the crew). */
+  can: { update: boolean; readCertificate: boolean };
 }
 
 /** Exemption certificates: PDF or image, checked by content, at most 5 MB. */

@@ -135,7 +135,7 @@ customersRouter.post('/:id/exemption-certificate', authenticate, validate(IdPara
 customersRouter.get('/:id/exemption-certificate', authenticate, validate(IdParams, 'params'), async (req, res) => {
   const { user } = auth(req);
   const customer = sameOrganization(user, await Customer.findByPk(parsed<{ id: string }>(res, 'params').id), 'That customer');
-  authorize(user, 'customer', 'read', customer);
+  authorize(user, 'customer', 'readCertificate', customer);
   const file = customer.exemptionCertificateId ? await readFile(user.organizationId, customer.exemptionCertificateId) : null;
   if (!file) throw notFound('The certificate');
   res.setHeader('Content-Type', file.contentType);

@@ -74,7 +74,8 @@ planningRouter.put('/organization/rules', authenticate, async (req, res) => {
     authorize(user, 'organization', 'update', o);
     const before = rulesOf(o);
     // The sent fields over the current rules: a form that does not know a newer rule leaves it as it was.
-    const body = req.body && typeof req.body === 'object' && !Array.isArray(req.body) ? (req.body as Record<string, unknown>) : {};
+    if (!req.body || typeof req.body !== 'object' || Array.isArray(req.body)) throw badRequest('Send the rules as a JSON object of the fields to change.');
+    const body = req.body as Record<string, unknown>;
     const { can: _can, ...sent } = body;
     const result = CompanyRules.safeParse({ ...before, ...sent });
     if (!result.success) {

@@ -302,7 +302,6 @@ describe('bodies the parser refuses, before any route', () => {
     expect(wrong).toEqual([]);
   }, 120_000);
 
-  // PUT /api/organization/rules reads any body that is not an object as "no change" (200), by design.
   it('a body nested 300,000 deep (JSON.parse takes it) is never a 5xx, on every fuzzed route', async () => {
     const deep = `${'['.repeat(300_000)}1${']'.repeat(300_000)}`;
     for (const route of writes) {
@@ -311,6 +310,8 @@ describe('bodies the parser refuses, before any route', () => {
       const res = await post(f.clients[fuzz.as], route.method, fillPath(route.path, (await fuzz.params?.(f)) ?? {}), deep);
       expect(res.status, routeKey(route)).toBeLessThan(500);
       if (res.status >= 400) expectErrorShape(res, routeKey(route));
+      // The rules route merges the sent fields over the current rules; an array is no set of fields.
+      if (routeKey(route) === 'PUT /api/organization/rules') expect(res.status).toBe(400);
     }
   }, 120_000);
 

@@ -89,6 +89,7 @@ const MATRIX: Record<string, Row> = {
   'POST /api/quotes/preview':                    row('401  401  403  ok   ok   ok   ok', { body: () => ({ lines: [{ description: 'Tent', quantity: 1, unitPriceCents: 10_000 }], taxRateBp: 725 }) }),
   // B's owner asking about A's tent gets an empty answer: items are looked up within the asker's company.
   'POST /api/availability/check':                row('401  401  ok   ok   ok   ok   ok', { body: (f) => ({ from: '2031-01-01T00:00:00Z', to: '2031-02-01T00:00:00Z', lines: [{ itemId: f.tent.id, quantity: 1 }] }) }),
+  // The company's terms (tax rate, deposit share, delivery bands) are printed on every agreement; the crew's booking screen reads the rest (turnaround, space per guest, wind limit).
   'GET /api/organization/rules':                 row('401  401  ok   ok   ok   ok   ok'),
   'PUT /api/organization/rules':                 row('401  401  403  403  403  ok   ok', { body: () => ({}) }),
 
@@ -191,7 +192,7 @@ const MATRIX: Record<string, Row> = {
   'GET /api/customers/:id':                      row('401  401  ok   ok   ok   ok   404', { params: id((f) => f.certCustomer.id) }),
   'PUT /api/customers/:id':                      row('401  401  403  ok   403  ok   404', { params: id((f) => f.certCustomer.id), body: (f) => ({ name: f.certCustomer.name, taxExempt: true }) }),
   'POST /api/customers/:id/exemption-certificate':   row('401  401  403  ok   403  ok   404', { params: id((f) => f.certCustomer.id), upload: (f) => f.uploads.certificate }),
-  'GET /api/customers/:id/exemption-certificate':    row('401  401  ok   ok   ok   ok   404', { params: id((f) => f.certCustomer.id) }),
+  'GET /api/customers/:id/exemption-certificate':    row('401  401  403  ok   ok   ok   404', { params: id((f) => f.certCustomer.id) }),
   'DELETE /api/customers/:id/exemption-certificate': row('401  401  403  ok   403  ok   404', { params: async (f) => ({ id: await f.fresh.certCustomer() }) }),
 
   // --- bookings -------------------------------------------------------------------------------------------
@@ -331,6 +332,14 @@ describe('who gets past the guard', () => {
 });
 
 describe('what a role reads where it may read', () => {
+  it("the crew reads a customer without their tax exemption certificate (a tax record); the office gets it", async () => {
+    const url = `/api/customers/${f.certCustomer.id}`;
+    const asOffice = await send(f.clients.office, { method: 'GET', url });
+    const asCrew = await send(f.clients.crew, { method: 'GET', url });
+    expect([asOffice.status, asOffice.body.can.readCertificate, asOffice.body.exemptionCertificate?.filename]).toEqual([200, true, expect.any(String)]);
+    expect([asCrew.status, asCrew.body.can.readCertificate, asCrew.body.exemptionCertificate]).toEqual([200, false, null]);
+  });
+
   it("the crew reads a booking's history without the amounts in it (the crew sees no money)", async () => {
     const url = `/api/bookings/${f.bookings.reserved.id}/history`;
     const asOffice = await send(f.clients.office, { method: 'GET', url });

@@ -108,9 +108,11 @@ export default function CustomerRoute() {
           <CustomerForm customer={c} readOnly={!c.can.update} />
         </SectionCard>
         {me?.areas.includes('invoices') ? <CustomerCredit customerId={c.id} customerName={c.name} canPayBack={me.user.role === 'owner'} /> : null}
-        <SectionCard title="Tax exemption certificate" description="A copy of the customer’s resale or exemption certificate, for your sales tax records.">
-          <CertificatePanel customer={c} />
-        </SectionCard>
+        {c.can.readCertificate ? (
+          <SectionCard title="Tax exemption certificate" description="A copy of the customer’s resale or exemption certificate, for your sales tax records.">
+            <CertificatePanel customer={c} />
+          </SectionCard>
+        ) : null}
         <SectionCard title="Bookings">
           <CustomerBookings customerId={c.id} />
         </SectionCard>
