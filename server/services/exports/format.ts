@@ -1,7 +1,9 @@
 /**
  * Turning database text into CSV cells, with string arithmetic only: amounts arrive as the digits
  * of whole cents ("-12345") and leave as decimal strings with two places ("-123.45"). No value
- * passes through a JavaScript number, so no float ever touches a cent.
+ * passes through a JavaScript number, so no float ever touches a cent. Where an export has
+ * PostgreSQL print its cells instead (the paid invoices, for speed), the SQL twins below give the
+ * same text with exact NUMERIC arithmetic.
  */
 
 const CENTS = /^-?\d+$/;
@@ -56,6 +58,19 @@ export const METHOD_LABELS: Record<string, string> = {
   security_deposit: 'security deposit',
   credit: 'account credit',
 };
+
+const sqlText = (text: string) => `'${text.replace(/'/g, "''")}'`;
+
+/**
+ * The same amounts as `centsText`, printed by PostgreSQL: whole cents times 0.01 is an exact
+ * NUMERIC with two places ("-0.05", "0.00"; NUMERIC has no minus zero). `unit` may be an SQL
+ * expression giving -0.01 to turn the sign.
+ */
+export const centsSql = (cents: string, unit = '0.01') => `((${cents}) * ${unit})::text`;
+
+/** METHOD_LABELS as an SQL expression over a payment method column. */
+export const methodLabelSql = (method: string) =>
+  `CASE ${method}::text ${Object.entries(METHOD_LABELS).map(([m, label]) => `WHEN ${sqlText(m)} THEN ${sqlText(label)}`).join(' ')} ELSE ${method}::text END`;
 
 export const ACCOUNT_TYPE_LABELS: Record<string, string> = {
   asset: 'Asset',
