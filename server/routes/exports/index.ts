@@ -15,7 +15,7 @@ import { invoiceLinesCsv } from '../../services/exports/invoiceLines';
 import { journalCsv, trialBalanceCsv } from '../../services/exports/journal';
 import { paidInvoicesCsv } from '../../services/exports/paidInvoices';
 import { paymentsCsv } from '../../services/exports/payments';
-import { markCancelled, rangeInstants, runExport, type ExportWriter } from '../../services/exports/run';
+import { markCancelled, rangeInstants, runExport, sweepStoppedRuns, type ExportWriter } from '../../services/exports/run';
 import { countPdfFiles, countUblFiles, writePdfZip, writeUblZip } from '../../services/exports/zip';
 
 export const exportsRouter = Router();
@@ -51,6 +51,8 @@ exportsRouter.get('/history', authenticate, validate(ExportHistoryQuery, 'query'
   const { user } = auth(req);
   authorize(user, 'export', 'history');
   const q = parsed<ListQuery>(res, 'query');
+  // A run whose server stopped half way would otherwise say running for ever.
+  await sweepStoppedRuns(user.organizationId);
   const { rows, count } = await ExportRun.findAndCountAll({
     where: { organizationId: user.organizationId },
     order: [['startedAt', 'DESC'], ['id', 'ASC']],

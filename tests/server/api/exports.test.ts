@@ -537,6 +537,20 @@ describe('export history', () => {
     expect(history.body.data.find((r: { id: string }) => r.id === runId).status).toBe('aborted');
   });
 
+  it('a run left saying running by a server that stopped (no process holds its lock) reads as failed in the history', async () => {
+    const s = await buildCompany();
+    const bookkeeper = await as(s.bookkeeper);
+    // What a killed server leaves: the row, and no connection holding its lock.
+    const orphan = await ExportRun.create({ organizationId: s.organization.id, userId: s.bookkeeper.id, kind: 'journal', fromDate: '2026-01-01', toDate: '2026-01-31', startedAt: new Date(Date.now() - 60_000) });
+    const other = await buildCompany();
+    const othersOrphan = await ExportRun.create({ organizationId: other.organization.id, userId: other.bookkeeper.id, kind: 'journal', fromDate: '2026-01-01', toDate: '2026-01-31' });
+    const history = await bookkeeper.get('/api/exports/history');
+    expect(history.status).toBe(200);
+    expect(history.body.data.find((r: { id: string }) => r.id === orphan.id)).toMatchObject({ status: 'failed', error: 'The server stopped during this export; the file was not finished.', finishedAt: expect.any(String) });
+    // Another company's rows are left to its own people's history.
+    expect((await ExportRun.findByPk(othersOrphan.id))!.status).toBe('running');
+  });
+
   it('a download the browser stops half way is marked aborted, with what was sent so far', async () => {
     const s = await buildCompany();
     // A long journal: 20,000 balanced entries with long memos (about 20 MB of CSV), more than the sockets between here and the server hold.
@@ -572,6 +586,9 @@ describe('export history', () => {
       const reader = res.body!.getReader();
       const first = await reader.read();
       expect(first.done).toBe(false);
+      // While it runs, its process holds the run's lock: the history says running.
+      const during = await bookkeeper.get('/api/exports/history');
+      expect(during.body.data.find((r: { id: string }) => r.id === runId).status).toBe('running');
       controller.abort();
       await expect.poll(async () => (await ExportRun.findByPk(runId))!.status, { timeout: 60_000 }).toBe('aborted');
       const row = (await ExportRun.findByPk(runId))!;
