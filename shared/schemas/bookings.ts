@@ -183,6 +183,25 @@ export interface BookingRow {
   can: { update: boolean; changeStatus: BookingStatus[]; seePrices: boolean; issueDocuments: boolean; readDocuments: boolean };
 }
 
+/**
+ * A row of GET /api/bookings: what the lists, the calendar and the booking picker show. The
+ * booking with its lines, quote and permissions is GET /api/bookings/:id.
+ */
+export interface BookingListRow {
+  id: string;
+  reference: string;
+  status: BookingStatus;
+  customer: { id: string; name: string };
+  eventStart: string;
+  eventEnd: string;
+  siteLine1: string;
+  siteCity: string;
+  guestCount: number;
+  currency: string;
+  /** The booking's stored quote total; null for roles that see no prices. */
+  totalCents: number | null;
+}
+
 /** A 409 on reserving: which items are short and by how many. */
 export interface ShortfallDetail {
   itemId: string;

@@ -4,6 +4,7 @@ import { Op, col, fn, where, type WhereOptions } from 'sequelize';
 import { IdParams } from '../../../shared/schemas/common';
 import { CERTIFICATE_MAX_BYTES, CERTIFICATE_TYPES, CustomerInput, CustomerListQuery, type CustomerValues } from '../../../shared/schemas/customers';
 import { audit } from '../../commands/audit';
+import { requoteBookings } from '../../commands/bookingTotals';
 import { withTransaction } from '../../db';
 import { HttpError, notFound } from '../../errors';
 import { auth, authenticate } from '../../middlewares/authenticate';
@@ -87,7 +88,7 @@ customersRouter.get('/:id', authenticate, validate(IdParams, 'params'), async (r
 });
 
 customersRouter.put('/:id', authenticate, validate(IdParams, 'params'), validate(CustomerInput), async (req, res) => {
-  const { user } = auth(req);
+  const { user, organization } = auth(req);
   const { id } = parsed<{ id: string }>(res, 'params');
   const values = parsed<CustomerValues>(res);
   const customer = await withTransaction(async (t) => {
@@ -96,6 +97,8 @@ customersRouter.put('/:id', authenticate, validate(IdParams, 'params'), validate
     c.set(values);
     const changed = c.changed() || [];
     await c.save({ transaction: t });
+    // The sales tax of the customer's bookings follows the exemption: their stored totals too.
+    if (changed.includes('taxExempt')) await requoteBookings(organization, t, { customerId: c.id });
     await audit({ organizationId: user.organizationId, actorUserId: user.id, action: 'customer.updated', subjectType: 'customer', subjectId: c.id, data: { changed } }, req, t);
     return c;
   });

@@ -7,6 +7,7 @@ import { CompanyRules } from '../../../shared/schemas/rules';
 import { plan } from '../../../shared/planner';
 import { quote } from '../../../shared/quote';
 import { audit } from '../../commands/audit';
+import { requoteBookings } from '../../commands/bookingTotals';
 import { withTransaction } from '../../db';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { fieldErrors, parsed, validate } from '../../middlewares/validate';
@@ -85,6 +86,8 @@ planningRouter.put('/organization/rules', authenticate, async (req, res) => {
     const rules = result.data;
     o.rules = rules;
     await o.save({ transaction: t });
+    // Delivery bands, the damage waiver and what is taxed price every booking: the stored totals follow.
+    await requoteBookings(o, t);
     await audit({ organizationId: o.id, actorUserId: user.id, action: 'organization.rules_updated', subjectType: 'organization', subjectId: o.id, data: { before, after: rules } }, req, t);
     return o;
   });

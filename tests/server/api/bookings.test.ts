@@ -149,4 +149,39 @@ describe('GET /api/bookings', () => {
     expect((await o.get(`/api/bookings/${foreign.body.id}`)).status).toBe(404);
     expect((await o.post(`/api/bookings/${foreign.body.id}/status`, { status: 'quoted' })).status).toBe(404);
   });
+
+  it('answers list rows: no lines, the stored total for the office, no money for the crew', async () => {
+    const { owner, office, crew, organization, customer, tent, chairs } = await company();
+    const o = await as(owner);
+    const made = await o.post('/api/bookings', bookingBody(customer.id, '2027-06-05', [
+      { itemId: tent.id, quantity: 1, unitPriceCents: 45_000 },
+      { itemId: chairs.id, quantity: 40, unitPriceCents: 200 },
+    ], { taxRateBp: 725, deliveryMiles: 12, damageWaiver: true }));
+    expect(made.status).toBe(201);
+    const quoted = (id: string) => o.get(`/api/bookings/${id}`).then((r) => r.body.totals.totalCents as number);
+    const listed = async (client: Awaited<ReturnType<typeof as>>) => (await client.get(`/api/bookings?customerId=${customer.id}`)).body.data[0];
+
+    const row = await listed(await as(office));
+    expect(Object.keys(row).sort()).toEqual(['currency', 'customer', 'eventEnd', 'eventStart', 'guestCount', 'id', 'reference', 'siteCity', 'siteLine1', 'status', 'totalCents']);
+    expect(row).toMatchObject({ id: made.body.id, reference: made.body.reference, status: 'draft', customer: { id: customer.id, name: 'Wren Ashgrove' }, eventStart: made.body.eventStart, currency: organization.currency });
+    expect(row.totalCents).toBe(made.body.totals.totalCents);
+    expect(row.totalCents).toBeGreaterThan(0);
+    expect((await o.get(`/api/bookings?customerId=${customer.id}&page=2`)).body).toEqual({ data: [], total: 1 });
+
+    const crewRow = await listed(await as(crew));
+    expect(crewRow.id).toBe(made.body.id);
+    expect(crewRow.totalCents).toBeNull();
+    expect(JSON.stringify(crewRow)).not.toMatch(/Cents":[1-9]|lines|totals/);
+
+    // The quote reads the customer's exemption and the company's rules: the stored total follows both.
+    const put = (url: string, body: object) => o.agent.put(url).set('X-CSRF-Token', o.csrf).set('X-Forwarded-For', o.ip).send(body);
+    const exempt = await put(`/api/customers/${customer.id}`, { name: 'Wren Ashgrove', phone: '555-0199', taxExempt: true });
+    expect(exempt.status).toBe(200);
+    expect((await listed(o)).totalCents).toBe(await quoted(made.body.id));
+    expect((await listed(o)).totalCents).toBeLessThan(row.totalCents);
+    const before = (await listed(o)).totalCents;
+    expect((await put('/api/organization/rules', { damageWaiverBp: 2500 })).status).toBe(200);
+    expect((await listed(o)).totalCents).toBe(await quoted(made.body.id));
+    expect((await listed(o)).totalCents).toBeGreaterThan(before);
+  });
 });

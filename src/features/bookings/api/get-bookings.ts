@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { BookingRow, BookingStatus } from '@shared/schemas/bookings';
+import type { BookingListRow, BookingStatus } from '@shared/schemas/bookings';
 import type { ListResponse } from '@shared/schemas/common';
 import { api } from '@/lib/api';
 
@@ -15,7 +15,7 @@ export interface BookingsFilter {
 }
 
 export const getBookings = ({ status, ...rest }: BookingsFilter, signal?: AbortSignal) =>
-  api.get<ListResponse<BookingRow>>('/api/bookings', { query: { ...rest, status: status?.length ? status.join(',') : undefined }, signal });
+  api.get<ListResponse<BookingListRow>>('/api/bookings', { query: { ...rest, status: status?.length ? status.join(',') : undefined }, signal });
 
 export const bookingsBaseKey = ['bookings'] as const;
 

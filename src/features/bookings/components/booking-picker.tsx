@@ -1,5 +1,5 @@
 import { useEffect, useId, useState } from 'react';
-import type { BookingRow } from '@shared/schemas/bookings';
+import type { BookingListRow } from '@shared/schemas/bookings';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { formatDate } from '@/lib/format';
@@ -13,7 +13,7 @@ export interface PickedBooking {
   eventStart: string;
 }
 
-const picked = (b: BookingRow): PickedBooking => ({ id: b.id, reference: b.reference, customerName: b.customer.name, eventStart: b.eventStart });
+const picked = (b: BookingListRow): PickedBooking => ({ id: b.id, reference: b.reference, customerName: b.customer.name, eventStart: b.eventStart });
 const describe = (b: PickedBooking) => `${b.reference} · ${b.customerName} · ${formatDate(b.eventStart)}`;
 
 interface BookingPickerProps {

@@ -1,5 +1,5 @@
 import { Link } from 'react-router';
-import { BOOKING_STATUSES, BOOKING_STATUS_LABELS, type BookingRow } from '@shared/schemas/bookings';
+import { BOOKING_STATUSES, BOOKING_STATUS_LABELS, type BookingListRow } from '@shared/schemas/bookings';
 import { MonthGrid } from '@/components/ui/month-grid';
 import { paths } from '@/config/paths';
 import { cn } from '@/lib/cn';
@@ -7,8 +7,8 @@ import { addCalendarDays, monthLabel, zonedDate } from '@/lib/zoned-time';
 import { STATUS_STYLES } from './status';
 
 /** Each booking on every day its event touches, on the company's calendar. */
-function byDay(bookings: readonly BookingRow[], timeZone: string): Map<string, BookingRow[]> {
-  const days = new Map<string, BookingRow[]>();
+function byDay(bookings: readonly BookingListRow[], timeZone: string): Map<string, BookingListRow[]> {
+  const days = new Map<string, BookingListRow[]>();
   for (const b of bookings) {
     const first = zonedDate(b.eventStart, timeZone);
     const last = zonedDate(b.eventEnd, timeZone);
@@ -35,7 +35,7 @@ export function StatusLegend() {
   );
 }
 
-export function BookingsCalendar({ bookings, month, timeZone }: { bookings: readonly BookingRow[]; month: string; timeZone: string }) {
+export function BookingsCalendar({ bookings, month, timeZone }: { bookings: readonly BookingListRow[]; month: string; timeZone: string }) {
   const days = byDay(bookings, timeZone);
   return (
     <MonthGrid

@@ -1,15 +1,15 @@
 import { Link } from 'react-router';
 import { formatMoney } from '@shared/money';
-import type { BookingRow } from '@shared/schemas/bookings';
+import type { BookingListRow } from '@shared/schemas/bookings';
 import { Table, TBody, Td, Th, THead, Tr } from '@/components/ui/table';
 import { linkClasses } from '@/components/ui/text-link';
 import { paths } from '@/config/paths';
 import { formatZoned } from '@/lib/zoned-time';
 import { StatusBadge } from './status';
 
-export function BookingsTable({ bookings, timeZone, caption = 'Bookings', hideCustomer = false }: { bookings: readonly BookingRow[]; timeZone: string; caption?: string; hideCustomer?: boolean }) {
+export function BookingsTable({ bookings, timeZone, caption = 'Bookings', hideCustomer = false }: { bookings: readonly BookingListRow[]; timeZone: string; caption?: string; hideCustomer?: boolean }) {
   // Crew get no totals: the column goes when no row carries prices.
-  const showTotals = bookings.some((b) => b.can.seePrices && b.totals);
+  const showTotals = bookings.some((b) => b.totalCents !== null);
   return (
     <Table caption={caption}>
       <THead>
@@ -41,7 +41,7 @@ export function BookingsTable({ bookings, timeZone, caption = 'Bookings', hideCu
             <Td>
               <StatusBadge status={b.status} />
             </Td>
-            {showTotals ? <Td className="text-right whitespace-nowrap tabular-nums">{b.totals ? formatMoney(b.totals.totalCents, b.currency) : '—'}</Td> : null}
+            {showTotals ? <Td className="text-right whitespace-nowrap tabular-nums">{b.totalCents !== null ? formatMoney(b.totalCents, b.currency) : '—'}</Td> : null}
           </Tr>
         ))}
       </TBody>
