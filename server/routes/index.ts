@@ -3,6 +3,7 @@ import { env } from '../env';
 import { authRouter } from './auth';
 import { bookingsRouter } from './bookings';
 import { customersRouter } from './customers';
+import { dashboardRouter } from './dashboard';
 import { documentsRouter } from './documents';
 import { exportsRouter } from './exports';
 import { fieldRouter } from './field';
@@ -34,6 +35,7 @@ export function apiRouter() {
   api.use('/field', fieldRouter);
   api.use('/exports', exportsRouter);
   api.use('/reports', reportsRouter);
+  api.use('/dashboard', dashboardRouter);
   if (env.FAKES === 'on') api.use('/dev', devRouter);
   return api;
 }

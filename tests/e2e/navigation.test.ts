@@ -34,6 +34,28 @@ describe('signing in as each demo role', () => {
     });
   }
 
+  it("Home's Overdue figure opens the overdue invoices, and their count is the same; the crew's Home has no money", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await context.newPage();
+    await signIn(page, 'office@demo.test', DEMO_PASSWORD);
+    const figures = page.getByRole('list', { name: 'Today’s figures' });
+    const overdue = figures.getByRole('link', { name: /^Overdue/ });
+    const note = (await overdue.innerText()).match(/(\d+) invoices? past/);
+    expect(note).not.toBeNull();
+    await overdue.click();
+    await page.waitForURL(/\/app\/invoices\?status=overdue$/);
+    await page.getByText(new RegExp(`^${note![1]} invoices?$`)).waitFor();
+    await context.close();
+
+    const crewContext = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const crewPage = await crewContext.newPage();
+    await signIn(crewPage, 'crew@demo.test', DEMO_PASSWORD);
+    const crewFigures = crewPage.getByRole('list', { name: 'Today’s figures' });
+    await crewFigures.getByRole('link', { name: /^Stops today/ }).waitFor();
+    expect(await crewFigures.getByText(/\$/).count()).toBe(0);
+    await crewContext.close();
+  });
+
   it('a signed-out visit to a page of the app goes to sign-in and comes back after', async () => {
     const context = await browser.newContext();
     const page = await context.newPage();

@@ -228,6 +228,8 @@ const MATRIX: Record<string, Row> = {
     stateOnly: 'the check-in is not submitted: 409 not_checked_in once the role is allowed (charges are made in field-charges.test.ts)',
   }),
 
+  'GET /api/dashboard':                          row('401  401  ok   ok   ok   ok   ok'), // each gets their own company's figures; the crew's without money (dashboard.test.ts)
+
   // --- exports: the bookkeeper's and the owner's ------------------------------------------------------------
   'GET /api/exports/history':                    row('401  401  403  403  ok   ok   ok'),
   'POST /api/exports/history/:id/cancel':        row('401  401  403  403  ok   404  404', { // only the person who ran the download
