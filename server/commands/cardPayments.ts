@@ -10,11 +10,11 @@ import { INVOICE_KIND_LABELS } from '../../shared/schemas/invoices';
 import { sequelize, withTransaction, type Transaction } from '../db';
 import { conflict, HttpError } from '../errors';
 import { logger } from '../logger';
-import { postEntry, refundIssued } from '../ledger/post';
+import { cardFeeCharged, postEntry, refundIssued } from '../ledger/post';
 import { CardCheckout, Customer, Invoice, Organization, Payment, Refund, StripeEvent, type User } from '../models';
 import { queueMail } from '../services/mailer';
 import { queueJob } from '../services/jobs';
-import { cardPaymentsEnabled, stripe } from '../services/stripe';
+import { cardFeeOf, cardPaymentsEnabled, stripe } from '../services/stripe';
 import { audit } from './audit';
 import { recordPayment, reopenInvoices } from './invoices';
 
@@ -144,8 +144,36 @@ export async function receiveEvent(event: Stripe.Event): Promise<{ duplicate: bo
   });
 }
 
+/** The payment intent an event says was paid, if it says so. */
+function paidIntentOf(event: Stripe.Event): { intentId: string; currency: string | null } | null {
+  if (event.type === 'checkout.session.completed') {
+    const session = event.data.object;
+    return session.payment_status === 'paid' && typeof session.payment_intent === 'string' ? { intentId: session.payment_intent, currency: session.currency ?? null } : null;
+  }
+  if (event.type === 'payment_intent.succeeded') return { intentId: event.data.object.id, currency: event.data.object.currency ?? null };
+  return null;
+}
+
+/**
+ * For an event that says a card payment went through: the processor's fee on it, asked for before
+ * the handling's transaction so no row stays locked while the processor answers. Undefined when
+ * there is nothing to ask (another event, already handled, the fee already known); null when the
+ * processor could not tell.
+ */
+async function feeForEvent(eventId: string): Promise<number | null | undefined> {
+  const row = await StripeEvent.findByPk(eventId, { attributes: ['id', 'payload', 'processedAt'] });
+  if (!row || row.processedAt) return undefined;
+  const paid = paidIntentOf(row.payload as unknown as Stripe.Event);
+  if (!paid) return undefined;
+  const known = await Payment.findOne({ where: { stripePaymentIntentId: paid.intentId, feeCents: { [Op.ne]: null } }, attributes: ['id'] });
+  if (known) return undefined;
+  const checkout = await CardCheckout.findOne({ where: { stripePaymentIntentId: paid.intentId }, attributes: ['currency'] });
+  return cardFeeOf(paid.intentId, checkout?.currency ?? paid.currency);
+}
+
 /** Handles a stored event once: the row is locked and marked processed in the handling's own transaction. */
 export async function processEvent(eventId: string): Promise<void> {
+  const fee = await feeForEvent(eventId);
   await withTransaction(async (t) => {
     const row = await StripeEvent.findByPk(eventId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!row || row.processedAt) return;
@@ -154,14 +182,14 @@ export async function processEvent(eventId: string): Promise<void> {
       case 'checkout.session.completed': {
         const session = event.data.object;
         if (session.payment_status === 'paid' && typeof session.payment_intent === 'string') {
-          await cardPaid(session.metadata?.checkoutId ?? session.client_reference_id ?? null, session.id, session.payment_intent, session.amount_total ?? 0, null, t);
+          await cardPaid(session.metadata?.checkoutId ?? session.client_reference_id ?? null, session.id, session.payment_intent, session.amount_total ?? 0, null, fee, t);
         }
         break;
       }
       case 'payment_intent.succeeded': {
         const intent = event.data.object;
         const charge = typeof intent.latest_charge === 'string' ? intent.latest_charge : (intent.latest_charge?.id ?? null);
-        await cardPaid(intent.metadata?.checkoutId ?? null, null, intent.id, intent.amount_received, charge, t);
+        await cardPaid(intent.metadata?.checkoutId ?? null, null, intent.id, intent.amount_received, charge, fee, t);
         break;
       }
       case 'payment_intent.payment_failed': {
@@ -205,17 +233,21 @@ async function findCheckout(checkoutId: string | null, sessionId: string | null,
 /**
  * The money is in: record the payment once (the payment intent's id is unique on payments), on
  * the checkout's invoice. The money was taken whatever happened meanwhile, so nothing is refused:
- * what the invoice no longer owes becomes the customer's account credit.
+ * what the invoice no longer owes becomes the customer's account credit. The processor's fee goes
+ * in with it when known; a payment recorded with its fee unknown gets it from a later event.
  */
-async function cardPaid(checkoutId: string | null, sessionId: string | null, intentId: string, amountCents: number, chargeId: string | null, t: Transaction) {
+async function cardPaid(
+  checkoutId: string | null, sessionId: string | null, intentId: string, amountCents: number, chargeId: string | null, fee: number | null | undefined, t: Transaction,
+) {
   const checkout = await findCheckout(checkoutId, sessionId, intentId, t);
   if (!checkout) {
     logger.warn({ intentId }, 'card payment for an unknown checkout');
     return;
   }
-  const existing = await Payment.findOne({ where: { stripePaymentIntentId: intentId }, transaction: t });
+  const existing = await Payment.findOne({ where: { stripePaymentIntentId: intentId }, transaction: t, lock: t.LOCK.UPDATE });
   if (existing) {
     if (chargeId && !existing.stripeChargeId) await existing.update({ stripeChargeId: chargeId }, { transaction: t });
+    if (existing.feeCents === null && fee != null) await bookCardFee(existing, fee, t);
     if (checkout.status !== 'paid') await checkout.update({ status: 'paid', paymentId: existing.id, message: null }, { transaction: t });
     return;
   }
@@ -230,7 +262,34 @@ async function cardPaid(checkoutId: string | null, sessionId: string | null, int
     t,
   );
   await payment.update({ stripePaymentIntentId: intentId, stripeChargeId: chargeId }, { transaction: t });
+  if (fee != null) await bookCardFee(payment, fee, t);
   await checkout.update({ status: 'paid', paymentId: payment.id, stripePaymentIntentId: intentId, message: null }, { transaction: t });
+}
+
+/**
+ * The processor's fee on a card payment: stored on the payment and posted as its own entry
+ * (Dr card processing fees, Cr card clearing). In a savepoint: should the entry be refused (the
+ * company took the fee role off its accounts, say), the payment still stands, with the fee unknown.
+ */
+async function bookCardFee(payment: Payment, feeCents: number, t: Transaction) {
+  try {
+    await sequelize.transaction({ transaction: t }, async (savepoint) => {
+      if (feeCents > 0) {
+        await postEntry(
+          {
+            organizationId: payment.organizationId, bookingId: payment.bookingId, customerId: payment.customerId,
+            memo: `Card processing fee on card payment ${payment.reference}`, occurredAt: payment.receivedAt,
+            source: { type: 'payment', id: payment.id }, createdById: null, ...cardFeeCharged(feeCents),
+          },
+          savepoint,
+        );
+      }
+      await Payment.update({ feeCents }, { where: { id: payment.id }, transaction: savepoint });
+    });
+    payment.setDataValue('feeCents', feeCents);
+  } catch (err) {
+    logger.warn({ paymentId: payment.id, feeCents, err: (err as Error).message }, 'card fee not booked; the payment stands with its fee unknown');
+  }
 }
 
 /** A declined attempt: the invoice stays open and the checkout says why, unless it was paid meanwhile. */

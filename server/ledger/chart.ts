@@ -7,6 +7,7 @@ export const SYSTEM_KEYS = [
   'cash_on_hand', 'bank', 'card_clearing', 'accounts_receivable',
   'customer_deposits', 'customer_credit', 'security_deposits_held', 'sales_tax_payable',
   'rental_revenue', 'delivery_labor_revenue', 'damage_waiver_revenue', 'damage_recovery', 'refunds',
+  'card_processing_fees',
 ] as const;
 export type SystemKey = (typeof SYSTEM_KEYS)[number];
 
@@ -18,7 +19,7 @@ export interface ChartAccount { code: string; name: string; type: AccountType; s
 
 /**
  * The default chart of a small US rental company: assets in 1xxx, liabilities in 2xxx, revenue in
- * 4xxx, the usual small-business numbering. Codes and names are our own defaults; the company
+ * 4xxx, expenses in 6xxx, the usual small-business numbering. Codes and names are our own defaults; the company
  * changes them in settings.
  */
 export const DEFAULT_CHART: readonly ChartAccount[] = [
@@ -42,6 +43,9 @@ export const DEFAULT_CHART: readonly ChartAccount[] = [
   { code: '4300', name: 'Damage recovery', type: 'revenue', systemKey: 'damage_recovery' },
   // Credit notes after the event land here, so gross revenue stays visible beside what was given back.
   { code: '4900', name: 'Refunds and allowances', type: 'contra_revenue', systemKey: 'refunds' },
+  // What the card processor keeps of each card payment: a cost of taking cards, never less revenue.
+  // Companies made before it get it from migration 20261204-0002 (or here, on their next posting).
+  { code: '6100', name: 'Card processing fees', type: 'expense', systemKey: 'card_processing_fees' },
 ];
 
 /**

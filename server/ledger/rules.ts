@@ -13,7 +13,7 @@ import type { RevenueKey, SystemKey } from './chart';
 
 export type EntryKind =
   | 'invoice_issued' | 'payment_received' | 'refund' | 'credit_note' | 'deposit_earned'
-  | 'security_deposit_held' | 'security_deposit_refunded' | 'security_deposit_applied' | 'credit_refunded' | 'reversal';
+  | 'security_deposit_held' | 'security_deposit_refunded' | 'security_deposit_applied' | 'credit_refunded' | 'card_fee' | 'reversal';
 
 export interface LineDraft {
   account: SystemKey;
@@ -161,6 +161,19 @@ export function paymentReceived(amountCents: number, method: PaymentMethod, toCr
       { account: 'accounts_receivable', creditCents: subtract(amountCents, toCreditCents) },
       { account: 'customer_credit', creditCents: toCreditCents },
     ]),
+  };
+}
+
+/**
+ * The card processor's fee on a card payment: the processor pays out the payment less its fee, so
+ * card clearing holds that much less (Cr card clearing) and the fee is a cost of doing business
+ * (Dr card processing fees, an expense). It never touches AR: the customer paid the whole amount.
+ */
+export function cardFeeCharged(feeCents: number): EntryDraft {
+  assertAmount(feeCents);
+  return {
+    kind: 'card_fee',
+    lines: [{ account: 'card_processing_fees', debitCents: feeCents }, { account: 'card_clearing', creditCents: feeCents }],
   };
 }
 

@@ -13,6 +13,8 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   /** Card payments: the processor's payment intent (unique: a card payment is recorded once) and charge. */
   declare stripePaymentIntentId: CreationOptional<string | null>;
   declare stripeChargeId: CreationOptional<string | null>;
+  /** Card payments: what the processor kept of the amount (its balance transaction's fee); null when not known. */
+  declare feeCents: CreationOptional<number | null>;
   declare amountCents: number;
   declare reference: CreationOptional<string>;
   declare receivedAt: Date;
@@ -32,6 +34,7 @@ Payment.init(
     creditCents: { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 },
     stripePaymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
     stripeChargeId: { type: DataTypes.STRING(255), allowNull: true },
+    feeCents: { type: DataTypes.BIGINT, allowNull: true },
     amountCents: { type: DataTypes.BIGINT, allowNull: false },
     reference: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
     receivedAt: { type: DataTypes.DATE, allowNull: false },

@@ -67,5 +67,6 @@ export function presentPayment(
     recordedBy,
     refundedCents,
     pendingRefundCents,
+    feeCents: payment.feeCents ?? null,
   };
 }

@@ -208,6 +208,8 @@ export interface PaymentRow {
   refundedCents: number;
   /** Card refunds asked for and not yet confirmed by the card processor. */
   pendingRefundCents: number;
+  /** Card payments: what the card processor kept of the amount; null when not known (and for other methods). */
+  feeCents: number | null;
 }
 
 export interface LedgerEntryRow {

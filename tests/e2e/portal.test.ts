@@ -6,7 +6,7 @@ import { createApp } from '../../server/app';
 import type { User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient, linkToken, mailTo, uniqueEmail, uniqueIp, waitForMail } from '../support';
-import { appUrl, launchBrowser } from './browser';
+import { appUrl, launchBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
@@ -126,6 +126,19 @@ describe('a customer pays a balance from their own pages', () => {
     expect(invoice).toMatchObject({ status: 'paid', paidCents: 33_784, balanceCents: 0 });
     const receipt = await waitForMail(s.email, { subject: /receipt/i, timeoutMs: 30_000 });
     expect(receipt.attachments.some((a) => /\.pdf$/i.test(a.filename))).toBe(true);
+
+    // The office sees the card processor's fee beside the payment: 2.9% + 30¢ of $337.84 is
+    // 979.736 + 30 cents, $10.10 (Stripe pricing page, standard US card rate, from memory; the card fake's rule).
+    await expect.poll(async () => (await s.office.get(`/api/bookings/${s.booking.id}/payments`)).body.data[0]?.feeCents, { timeout: 15_000 }).toBe(1_010);
+    const desk = await browser.newContext();
+    try {
+      const officePage = await desk.newPage();
+      await signIn(officePage, s.company.office.email, TEST_PASSWORD);
+      await officePage.goto(`${appUrl()}/app/invoices/${s.balance.id}`);
+      await officePage.getByRole('table', { name: `Payments on invoice ${s.balance.number}` }).getByText(`fee ${usd(1_010)}`).waitFor();
+    } finally {
+      await desk.close();
+    }
 
     // Your rentals lists the booking with the deposit still to pay.
     await page.getByRole('navigation', { name: 'Your account' }).getByRole('link', { name: 'Your rentals' }).click();

@@ -30,7 +30,7 @@ function delays(value: unknown): number[] | undefined {
 /**
  * Test controls under `/_fake` (never under /v1, no API key): read the events sent and their
  * delivery attempts, point the webhooks somewhere else, resend an event, pay or expire a session
- * without a browser, fail a refund, and start over.
+ * without a browser, fail a refund, refuse a payment's fee lookup, and start over.
  */
 export function controlRouter(payments: Payments, webhooks: WebhookDispatcher, o: { baseUrl: () => string; reset: () => void }): Router {
   const router = Router();
@@ -194,6 +194,17 @@ export function controlRouter(payments: Payments, webhooks: WebhookDispatcher, o
     const reason = typeof body(req).failure_reason === 'string' ? (body(req).failure_reason as string) : 'declined';
     failRefund(payments, refund, reason);
     res.json({ refund: snapshot(refund) });
+  });
+
+  // The fee of a session's or payment intent's charges cannot be looked up (a 500 from the API)
+  // until `{ "refuse": false }`: the app must record the money anyway, with the fee unknown.
+  router.post('/fees/refuse', (req, res) => {
+    const b = body(req);
+    const id = String(b.session_id ?? b.payment_intent ?? '');
+    if (!/^(cs_|pi_)/.test(id)) throw new ControlError(400, 'missing_id', 'Send { "session_id": "cs_..." } or { "payment_intent": "pi_..." }.');
+    if (b.refuse === false) store.refusedFeeLookups.delete(id);
+    else store.refusedFeeLookups.add(id);
+    res.json({ id, refused: store.refusedFeeLookups.has(id) });
   });
 
   router.post('/reset', (_req, res) => {

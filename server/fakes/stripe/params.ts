@@ -38,6 +38,11 @@ export function noSuch(objectName: string, id: string, param = 'id'): ApiError {
   });
 }
 
+/** What the API answers for a balance transaction a test asked the fake to refuse (`/_fake/fees/refuse`): an outage, not a missing object. */
+export function feeLookupRefused(id: string): ApiError {
+  return new ApiError(500, { type: 'api_error', message: `The local card fake refuses to show balance transaction ${id} (asked to through /_fake/fees/refuse).` });
+}
+
 type Raw = Record<string, unknown>;
 
 function isPlainObject(v: unknown): v is Raw {

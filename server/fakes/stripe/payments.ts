@@ -8,6 +8,7 @@ import {
   type CardFieldError,
   type CardInput,
 } from './cards';
+import { chargeBalanceTransaction } from './fees';
 import { buildCharge, buildPaymentIntent, type PaymentIntentInit } from './objects';
 import { ApiError, type ApiErrorBody } from './params';
 import {
@@ -324,6 +325,10 @@ export class Payments {
   private newCharge(pi: FakePaymentIntent, pm: PaymentMethodRecord, email: string | null, decline: CardDecline | null): FakeCharge {
     const charge = buildCharge(pi, pm, email, decline, this.baseUrl());
     this.store.charges.set(charge.id, charge);
+    if (!decline) {
+      const txn = chargeBalanceTransaction(charge);
+      this.store.balanceTransactions.set(txn.id, txn);
+    }
     return charge;
   }
 

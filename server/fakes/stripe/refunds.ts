@@ -1,5 +1,6 @@
 import { formatAmount } from './amounts';
 import { findTestCard } from './cards';
+import { refundBalanceTransaction } from './fees';
 import { invalidRequest, noSuch } from './params';
 import type { Payments, RequestInfo } from './payments';
 import { newId, unixNow, type FakeCharge, type FakeRefund } from './store';
@@ -79,6 +80,8 @@ export function createRefund(payments: Payments, req: RefundRequest, request: Re
     transfer_reversal: null,
   };
   store.refunds.set(refund.id, refund);
+  const txn = refundBalanceTransaction(refund);
+  store.balanceTransactions.set(txn.id, txn);
 
   const previous = { amount_refunded: charge.amount_refunded, refunded: charge.refunded };
   charge.amount_refunded += amount;

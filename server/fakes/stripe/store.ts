@@ -63,7 +63,13 @@ export type FakeRefund = Pick<
   | 'status' | 'transfer_reversal' | 'failure_reason'
 >;
 
-export type FakeObject = FakeSession | FakePaymentIntent | FakeCharge | FakeRefund;
+export type FakeBalanceTransaction = Pick<
+  Stripe.BalanceTransaction,
+  | 'id' | 'object' | 'amount' | 'available_on' | 'balance_type' | 'created' | 'currency' | 'description'
+  | 'exchange_rate' | 'fee' | 'fee_details' | 'net' | 'reporting_category' | 'source' | 'status' | 'type'
+>;
+
+export type FakeObject = FakeSession | FakePaymentIntent | FakeCharge | FakeRefund | FakeBalanceTransaction;
 
 export type FakeEvent = Pick<
   Stripe.EventBase,
@@ -121,6 +127,13 @@ export class CardFakeStore {
   refunds = new Map<string, FakeRefund>();
   events = new Map<string, FakeEvent>();
   paymentMethods = new Map<string, PaymentMethodRecord>();
+  balanceTransactions = new Map<string, FakeBalanceTransaction>();
+  /**
+   * Checkout sessions and payment intents whose balance transactions the API refuses to show
+   * (a 500, as an outage would), set through `/_fake`: lets a test see the app record a payment
+   * whose fee it could not learn.
+   */
+  refusedFeeLookups = new Set<string>();
 
   reset() {
     this.sessions.clear();
@@ -129,6 +142,8 @@ export class CardFakeStore {
     this.refunds.clear();
     this.events.clear();
     this.paymentMethods.clear();
+    this.balanceTransactions.clear();
+    this.refusedFeeLookups.clear();
   }
 
   /** Finds any API object by id, from its prefix. */
@@ -137,7 +152,22 @@ export class CardFakeStore {
     if (id.startsWith('pi_')) return this.paymentIntents.get(id);
     if (id.startsWith('ch_')) return this.charges.get(id);
     if (id.startsWith('re_')) return this.refunds.get(id);
+    if (id.startsWith('txn_')) return this.balanceTransactions.get(id);
     return undefined;
+  }
+
+  /** Whether the API refuses to show this balance transaction (its payment or session was marked through `/_fake`). */
+  refusesFeeLookup(txnId: string): boolean {
+    const bt = this.balanceTransactions.get(txnId);
+    if (!bt || this.refusedFeeLookups.size === 0 || typeof bt.source !== 'string') return false;
+    const owner = bt.source.startsWith('ch_') ? this.charges.get(bt.source) : this.refunds.get(bt.source);
+    const pi = owner && typeof owner.payment_intent === 'string' ? owner.payment_intent : null;
+    if (!pi) return false;
+    if (this.refusedFeeLookups.has(pi)) return true;
+    for (const { session } of this.sessions.values()) {
+      if (session.payment_intent === pi && this.refusedFeeLookups.has(session.id)) return true;
+    }
+    return false;
   }
 
   /** The succeeded charge of a payment intent, if it has one. */

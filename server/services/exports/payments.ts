@@ -25,14 +25,17 @@ const invoicesOf = (payment: string) => `(SELECT json_agg(json_build_object('num
  * each refund (by the time its ledger entry was posted, or asked for while a card refund is
  * pending), each security deposit taken or returned, and each payment of account credit back to
  * a customer. Money in is positive, money out negative. Card rows carry the processor's ids.
- * Processor fees are not recorded in Guyline, so the fee column is empty (unknown), never zero.
+ * Fee: what the card processor kept of a card payment, as a positive amount (the payout is the
+ * amount less the fee; the ledger books it to Card processing fees). It is empty, never zero, where
+ * the fee is not known: other methods, refunds (the processor keeps the payment's fee and charges
+ * none on a US refund, but Guyline does not ask), or a card payment whose fee lookup failed.
  */
 export const paymentsCsv: CsvExport = {
   rows: (s: ExportScope) => ({
     sql: `
       SELECT x.*, to_char(x.at AT TIME ZONE $4::text, 'YYYY-MM-DD') AS date FROM (
         SELECT p.id, p.received_at AS at, 'payment' AS type, p.method::text AS method, p.amount_cents::text AS amount, p.credit_cents::text AS kept_credit,
-               p.reference, p.stripe_payment_intent_id AS intent, p.stripe_charge_id AS charge, NULL::text AS refund_id, 'received' AS status,
+               p.reference, p.stripe_payment_intent_id AS intent, p.stripe_charge_id AS charge, NULL::text AS refund_id, p.fee_cents::text AS fee, 'received' AS status,
                ${invoicesOf('p.id')} AS invoices, c.name AS customer, b.reference AS booking, d.number AS receipt, ''::text AS note
           FROM payments p
           JOIN customers c ON c.id = p.customer_id
@@ -41,7 +44,7 @@ export const paymentsCsv: CsvExport = {
          WHERE p.organization_id = $1::uuid AND p.received_at >= $2::timestamptz AND p.received_at < $3::timestamptz
         UNION ALL
         SELECT r.id, coalesce(e.occurred_at, r.created_at), 'refund', p.method::text, (-r.amount_cents)::text, '0',
-               p.reference, p.stripe_payment_intent_id, p.stripe_charge_id, r.stripe_refund_id, r.status::text,
+               p.reference, p.stripe_payment_intent_id, p.stripe_charge_id, r.stripe_refund_id, NULL, r.status::text,
                ${invoicesOf('p.id')}, c.name, b.reference, NULL, r.reason
           FROM refunds r
           JOIN payments p ON p.id = r.payment_id
@@ -52,7 +55,7 @@ export const paymentsCsv: CsvExport = {
         UNION ALL
         SELECT m.id, coalesce(e.occurred_at, m.created_at), CASE m.kind WHEN 'held' THEN 'security_deposit_received' ELSE 'security_deposit_returned' END,
                coalesce(m.method::text, ''), (CASE m.kind WHEN 'held' THEN m.amount_cents ELSE -m.amount_cents END)::text, '0',
-               '', NULL, NULL, NULL, 'done', NULL, c.name, b.reference, NULL, m.reason
+               '', NULL, NULL, NULL, NULL, 'done', NULL, c.name, b.reference, NULL, m.reason
           FROM security_deposit_moves m
           JOIN bookings b ON b.id = m.booking_id
           JOIN customers c ON c.id = b.customer_id
@@ -62,7 +65,7 @@ export const paymentsCsv: CsvExport = {
         UNION ALL
         SELECT e.id, e.occurred_at, 'credit_paid_back', coalesce(substring(e.memo from '^Credit paid back by ([a-z ]+):'), ''),
                (-(SELECT sum(l.debit_cents) FROM journal_lines l JOIN accounts ac ON ac.id = l.account_id WHERE l.entry_id = e.id AND ac.system_key = 'customer_credit'))::text,
-               '0', '', NULL, NULL, NULL, 'done', NULL, c.name, NULL, NULL, e.memo
+               '0', '', NULL, NULL, NULL, NULL, 'done', NULL, c.name, NULL, NULL, e.memo
           FROM journal_entries e
           LEFT JOIN customers c ON c.id = e.customer_id
          WHERE e.organization_id = $1::uuid AND e.kind = 'credit_refunded' AND e.occurred_at >= $2::timestamptz AND e.occurred_at < $3::timestamptz
@@ -81,8 +84,7 @@ export const paymentsCsv: CsvExport = {
         return [
           row.date ?? '', TYPE_LABELS[row.type ?? ''] ?? row.type ?? '', METHOD_LABELS[row.method ?? ''] ?? row.method ?? '', centsText(row.amount),
           centsText(row.kept_credit), scope.currency, safeText(row.reference), row.intent ?? '', row.charge ?? '', row.refund_id ?? '',
-          // Fees: unknown (the processor's fee is not recorded in Guyline).
-          '',
+          row.fee == null ? '' : centsText(row.fee),
           STATUS_LABELS[row.status ?? ''] ?? row.status ?? '',
           invoices.map((i) => `${i.number} ${centsText(i.amount)}`).join('; '),
           safeText(row.customer), row.booking ?? '', row.receipt ?? '', safeText(row.note),

@@ -101,7 +101,11 @@ describe('paying an invoice by card', () => {
     const today = new Date().toISOString().slice(0, 10);
     const tb = (await s.office.get(`/api/ledger/trial-balance?at=${today}`)).body;
     expect(tb.totalDebitCents).toBe(tb.totalCreditCents);
-    expect(tb.accounts.find((a: { name: string }) => a.name === 'Card clearing').debitCents).toBe(60_000);
+    // Card clearing holds what the processor pays out: the payment less its fee, 2.9% + 30¢ of
+    // $600.00 = $17.70 (Stripe pricing page, standard US card rate, from memory; the fake's rule).
+    expect(payments[0].feeCents).toBe(1_770);
+    expect(tb.accounts.find((a: { name: string }) => a.name === 'Card clearing').debitCents).toBe(60_000 - 1_770);
+    expect(tb.accounts.find((a: { name: string }) => a.name === 'Card processing fees').debitCents).toBe(1_770);
 
     // Every event the fake sent for it, delivered again ten times at once: still one payment.
     const list = (await sdk().events.list({ type: 'payment_intent.succeeded', limit: 100 })).data;

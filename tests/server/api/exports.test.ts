@@ -294,7 +294,7 @@ describe('exports read back to the same numbers as the books', () => {
     expect(rows.map((r) => r.Description)).toContain('Cleaning: =Tent top washed, "sap" and mud');
   });
 
-  it('payments and refunds: one row each, with method, reference and the card processor’s ids; fees unknown are empty', async () => {
+  it('payments and refunds: one row each, with method, reference and the card processor’s ids and fee; fees unknown are empty', async () => {
     const s = await theBooks();
     const { rows } = csvRows((await download(s.bookkeeper, `/api/exports/payments.csv?${range(s.today, s.today)}`)).bytes);
     const payments = await Payment.findAll({ where: { organizationId: s.organization.id } });
@@ -304,9 +304,12 @@ describe('exports read back to the same numbers as the books', () => {
       const row = rows.find((r) => r.Type === 'Payment' && cents(r.Amount) === p.amountCents && r.Method === { cash: 'cash', check: 'check', transfer: 'bank transfer', card: 'card', security_deposit: 'security deposit', credit: 'account credit' }[p.method])!;
       expect(row).toBeTruthy();
       expect(row['Card payment id']).toBe(p.stripePaymentIntentId ?? '');
-      expect(row.Fee).toBe('');
+      expect(row.Fee).toBe(p.feeCents === null ? '' : dollars(p.feeCents));
+      if (p.method !== 'card') expect(row.Fee).toBe('');
     }
     const card = rows.find((r) => r.Type === 'Payment' && r.Method === 'card')!;
+    // The card fake's fee: 2.9% + 30¢ rounded to the cent (Stripe pricing page, standard US card rate, from memory).
+    expect(card.Fee).toBe(dollars(Math.round((cents(card.Amount) * 29) / 1000) + 30));
     expect(card['Card payment id']).toMatch(/^pi_/);
     expect(card['Card charge id']).toMatch(/^ch_/);
     const refund = rows.find((r) => r.Type === 'Refund')!;

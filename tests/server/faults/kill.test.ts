@@ -159,7 +159,11 @@ describe('SIGKILL while mail goes out and webhooks come in', () => {
     const today = new Date().toISOString().slice(0, 10);
     const tb = (await s.office.get(`${app.url}/api/ledger/trial-balance?at=${today}`)).body;
     expect(tb.totalDebitCents).toBe(tb.totalCreditCents);
-    expect(tb.accounts.find((a: { name: string }) => a.name === 'Card clearing').debitCents).toBe(paidTotal);
+    // Less the processor's fees, each booked once (Dr Card processing fees, Cr Card clearing).
+    const fees = await count(`SELECT coalesce(sum(fee_cents), 0) AS n FROM payments WHERE organization_id = :org`, { org: s.organization.id });
+    expect(await count(`SELECT count(*) AS n FROM journal_entries WHERE organization_id = :org AND kind = 'card_fee'`, { org: s.organization.id }))
+      .toBe(await count(`SELECT count(*) AS n FROM payments WHERE organization_id = :org AND fee_cents > 0`, { org: s.organization.id }));
+    expect(tb.accounts.find((a: { name: string }) => a.name === 'Card clearing').debitCents).toBe(paidTotal - fees);
 
     // Mail: each queued mail and each receipt reached the sink; a second copy only where a worker
     // died between the server's acceptance and writing it down (the delivery row's `interrupted`).

@@ -100,7 +100,7 @@ describe('postEntry and reverseEntry', () => {
 });
 
 describe('ensureChart', () => {
-  it('creates the thirteen default accounts once, even when two transactions race to do it', async () => {
+  it('creates the fourteen default accounts once, even when two transactions race to do it', async () => {
     const org = await buildOrganization();
     await Promise.all([withTransaction((t) => ensureChart(org.id, t)), withTransaction((t) => ensureChart(org.id, t))]);
     await withTransaction((t) => ensureChart(org.id, t));
@@ -109,7 +109,7 @@ describe('ensureChart', () => {
       '1000 asset cash_on_hand', '1010 asset bank', '1050 asset card_clearing', '1200 asset accounts_receivable',
       '2100 liability customer_deposits', '2120 liability customer_credit', '2150 liability security_deposits_held', '2200 liability sales_tax_payable',
       '4000 revenue rental_revenue', '4100 revenue delivery_labor_revenue', '4200 revenue damage_waiver_revenue',
-      '4300 revenue damage_recovery', '4900 contra_revenue refunds',
+      '4300 revenue damage_recovery', '4900 contra_revenue refunds', '6100 expense card_processing_fees',
     ]);
   });
 
@@ -118,6 +118,6 @@ describe('ensureChart', () => {
     await withTransaction((t) => ensureChart(org.id, t));
     await Account.update({ code: '4010', name: 'Tent and party rentals' }, { where: { organizationId: org.id, systemKey: 'rental_revenue' } });
     await withTransaction((t) => ensureChart(org.id, t));
-    expect(await Account.count({ where: { organizationId: org.id } })).toBe(13);
+    expect(await Account.count({ where: { organizationId: org.id } })).toBe(14);
   });
 });

@@ -3,7 +3,7 @@ import { zonedTimeToInstant } from '../../../shared/dates';
 import { withTransaction } from '../../../server/db';
 import { recognizeDepositsDue } from '../../../server/ledger/jobs';
 import {
-  assertBalanced, creditNote, depositEarned, eventTiming, invoiceIssued, paymentReceived, postEntry, receivingAccount, refundIssued,
+  assertBalanced, cardFeeCharged, creditNote, depositEarned, eventTiming, invoiceIssued, paymentReceived, postEntry, receivingAccount, refundIssued,
   securityDepositApplied, type EntryDraft,
 } from '../../../server/ledger/post';
 import { Booking, JournalEntry, Organization } from '../../../server/models';
@@ -40,6 +40,14 @@ describe('posting rules', () => {
     expect(show(securityDepositApplied(4_000, 'invoice'))).toEqual(['security_deposits_held Dr 4000', 'accounts_receivable Cr 4000']);
     expect(() => paymentReceived(0, 'cash')).toThrow(/above zero/);
     expect(() => paymentReceived(10.5, 'cash')).toThrow(/whole cents/);
+  });
+
+  it('book the card processor\'s fee as an expense out of card clearing, never through receivables', () => {
+    const fee = cardFeeCharged(321);
+    expect(fee.kind).toBe('card_fee');
+    expect(show(fee)).toEqual(['card_processing_fees Dr 321', 'card_clearing Cr 321']);
+    expect(() => assertBalanced(fee.lines)).not.toThrow();
+    expect(() => cardFeeCharged(0)).toThrow(/above zero/);
   });
 
   it('earn deposits part by part, the other way round for a part credited below zero', () => {

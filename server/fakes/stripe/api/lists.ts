@@ -1,5 +1,5 @@
 import type Stripe from 'stripe';
-import { invalidRequest, noSuch, type Params } from '../params';
+import { feeLookupRefused, invalidRequest, noSuch, type Params } from '../params';
 import { snapshot, type CardFakeStore } from '../store';
 
 export type ApiList<T> = Stripe.ApiList<T>;
@@ -44,7 +44,7 @@ type Expandable = Record<string, unknown>;
 
 /**
  * Replaces ids by their objects along each dotted `expand` path (`payment_intent`,
- * `payment_intent.latest_charge`, `data.charge` on lists). `line_items` on a session is its own
+ * `payment_intent.latest_charge`, `latest_charge.balance_transaction`, `data.charge` on lists). `line_items` on a session is its own
  * list. A path the fake cannot expand is refused as the real API refuses it.
  */
 export function expand<T>(value: T, paths: string[], store: CardFakeStore): T {
@@ -87,6 +87,7 @@ function expandAt(target: Expandable, parts: string[], path: string, index: numb
   if (typeof current === 'string') {
     const found = store.findById(current);
     if (!found) throw cannot();
+    if (found.object === 'balance_transaction' && store.refusesFeeLookup(found.id)) throw feeLookupRefused(found.id);
     object = snapshot(found) as unknown as Expandable;
     target[head] = object;
   } else if (typeof current === 'object' && !Array.isArray(current) && rest.length > 0) {

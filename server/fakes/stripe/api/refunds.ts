@@ -1,11 +1,11 @@
 import { Router } from 'express';
-import { noSuch, Params } from '../params';
+import { feeLookupRefused, noSuch, Params } from '../params';
 import type { Payments } from '../payments';
 import { createRefund } from '../refunds';
 import { expand, expandPaths, paginate } from './lists';
 import { requestInfo } from './middleware';
 
-/** Refunds, and the charges and events they and the payments leave behind (read only). */
+/** Refunds, and the charges, balance transactions and events they and the payments leave behind (read only). */
 export function refundsRouter(payments: Payments): Router {
   const router = Router();
   const store = payments.store;
@@ -55,6 +55,14 @@ export function refundsRouter(payments: Payments): Router {
     const charge = store.charges.get(req.params.id);
     if (!charge) throw noSuch('charge', req.params.id);
     res.json(expand(charge, expandPaths(p), store));
+  });
+
+  router.get('/balance_transactions/:id', (req, res) => {
+    const p = Params.of(req.query).only(['expand']);
+    const txn = store.balanceTransactions.get(req.params.id);
+    if (!txn) throw noSuch('balance transaction', req.params.id);
+    if (store.refusesFeeLookup(txn.id)) throw feeLookupRefused(txn.id);
+    res.json(expand(txn, expandPaths(p), store));
   });
 
   router.get('/events', (req, res) => {

@@ -29,6 +29,7 @@ export const ACCOUNT_PURPOSE_LABELS: Record<string, string> = {
   cash_on_hand: 'Cash and checks not yet banked',
   bank: 'Bank transfers',
   card_clearing: 'Card payments on their way to the bank',
+  card_processing_fees: 'What the card processor keeps of each card payment',
 };
 
 export const accountPurpose = (systemKey: string | null) => (systemKey ? (ACCOUNT_PURPOSE_LABELS[systemKey] ?? kindText(systemKey)) : '');

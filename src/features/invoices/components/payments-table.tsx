@@ -20,7 +20,11 @@ interface PaymentsTableProps {
   onRefund?: (payment: PaymentRow) => void;
 }
 
-/** Payments received: when, how, the reference, how much went where, and the receipt. */
+/**
+ * Payments received: when, how, the reference, how much went where (and, for a card payment, the
+ * processor's fee when known), and the receipt. Only people who see invoices see this table: the
+ * crew never does.
+ */
 export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId, onRefund }: PaymentsTableProps) {
   return (
     <Table caption={caption}>
@@ -54,6 +58,12 @@ export function PaymentsTable({ payments, currency, timeZone, caption, invoiceId
               <Td className="text-right whitespace-nowrap tabular-nums">
                 {formatMoney(here ? here.amountCents : p.amountCents, currency)}
                 {here && here.amountCents !== p.amountCents ? <span className="block text-xs text-canvas-600">of {formatMoney(p.amountCents, currency)}</span> : null}
+                {p.feeCents !== null && p.feeCents > 0 ? (
+                  <span className="block text-xs text-canvas-600">
+                    fee {formatMoney(p.feeCents, currency)}
+                    <span className="sr-only"> kept by the card processor</span>
+                  </span>
+                ) : null}
                 {p.refundedCents > 0 ? <span className="block text-xs text-canvas-600">{formatMoney(p.refundedCents, currency)} refunded</span> : null}
                 {p.pendingRefundCents > 0 ? (
                   <span className="block text-xs text-ochre-800">{formatMoney(p.pendingRefundCents, currency)} refund on its way to the card</span>
