@@ -3,7 +3,7 @@ import { QueryTypes, type InferAttributes } from 'sequelize';
 import { sequelize } from '../db';
 import { unauthenticated } from '../errors';
 import { Organization, Session, User } from '../models';
-import { clearSessionCookie, readSessionClaims } from '../services/sessions';
+import { clearSessionCookie, readSessionClaims, type SessionClaims } from '../services/sessions';
 
 export interface AuthContext {
   user: User;
@@ -47,25 +47,45 @@ async function loadSession(sid: string) {
   };
 }
 
-/** Loads the signed-in user from the session cookie; a revoked, expired or disabled session is a 401. */
-export async function authenticate(req: Request, res: Response, next: NextFunction) {
-  const claims = readSessionClaims(req);
-  if (!claims) return next(unauthenticated());
+/**
+ * The session of verified claims, with its user and company; a revoked, expired or disabled
+ * session throws the 401 (and clears the cookie).
+ */
+export async function resolveSession(claims: SessionClaims, res: Response): Promise<AuthContext> {
   // One query per request: the session with its user and the user's company.
   const found = UUID.test(claims.sid) ? await loadSession(claims.sid) : null;
   const session = found?.session;
   if (!session || session.userId !== claims.sub || session.revokedAt || session.expiresAt < new Date()) {
     clearSessionCookie(res);
-    return next(unauthenticated('Your session has ended. Sign in again.'));
+    throw unauthenticated('Your session has ended. Sign in again.');
   }
   const user = found.user;
   if (!user || user.organizationId !== session.organizationId || user.status !== 'active') {
     clearSessionCookie(res);
-    return next(unauthenticated('Your account is not active. Ask the owner of your company.'));
+    throw unauthenticated('Your account is not active. Ask the owner of your company.');
   }
   const organization = found.organization;
-  if (!organization) return next(unauthenticated());
-  req.auth = { user, organization, session };
+  if (!organization) throw unauthenticated();
+  return { user, organization, session };
+}
+
+/** Loads the signed-in user from the session cookie; a revoked, expired or disabled session is a 401. */
+export async function authenticate(req: Request, res: Response, next: NextFunction) {
+  const claims = readSessionClaims(req);
+  if (!claims) return next(unauthenticated());
+  try {
+    req.auth = await resolveSession(claims, res);
+  } catch (err) {
+    return next(err);
+  }
+  next();
+}
+
+/** The cookie's verified claims, or a 401 before anything else is done (for routes that overlap the session check with their read). */
+export function requireClaims(req: Request, _res: Response, next: NextFunction) {
+  const claims = readSessionClaims(req);
+  if (!claims) return next(unauthenticated());
+  req.claims = claims;
   next();
 }
 

@@ -7,9 +7,14 @@ import type { Transaction } from '../db';
 import { env, secureCookies } from '../env';
 import { Session, type User } from '../models';
 
-interface SessionClaims {
+export interface SessionClaims {
   sid: string;
   sub: string;
+  /**
+   * The company the session was opened in (tokens from before it was added have none). Signed, so
+   * a read may start on it while the session is checked; nothing is answered before the check.
+   */
+  org?: string;
 }
 
 // Given the secret as a string, jsonwebtoken makes a key of it on every call, first by trying it as
@@ -35,7 +40,7 @@ export async function startSession(req: Request, res: Response, user: User, tran
   );
   user.lastSignInAt = new Date();
   await user.save({ transaction });
-  const token = jwt.sign({ sid: session.id, sub: user.id } satisfies SessionClaims, sessionKey(), {
+  const token = jwt.sign({ sid: session.id, sub: user.id, org: user.organizationId } satisfies SessionClaims, sessionKey(), {
     expiresIn: env.SESSION_DAYS * 86_400,
     algorithm: 'HS256',
   });
@@ -54,7 +59,8 @@ export function readSessionClaims(req: Request): SessionClaims | null {
   if (!token || typeof token !== 'string') return null;
   try {
     const claims = jwt.verify(token, sessionKey(), { algorithms: ['HS256'] }) as SessionClaims;
-    return typeof claims.sid === 'string' && typeof claims.sub === 'string' ? claims : null;
+    if (typeof claims.sid !== 'string' || typeof claims.sub !== 'string') return null;
+    return { sid: claims.sid, sub: claims.sub, org: typeof claims.org === 'string' ? claims.org : undefined };
   } catch {
     return null;
   }

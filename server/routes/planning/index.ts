@@ -75,7 +75,11 @@ planningRouter.put('/organization/rules', authenticate, async (req, res) => {
     authorize(user, 'organization', 'update', o);
     const before = rulesOf(o);
     // The sent fields over the current rules: a form that does not know a newer rule leaves it as it was.
-    if (!req.body || typeof req.body !== 'object' || Array.isArray(req.body)) throw badRequest('Send the rules as a JSON object of the fields to change.');
+    if (!req.body || typeof req.body !== 'object' || Array.isArray(req.body)) {
+      // '_': the body as a whole, as validate() names it.
+      const message = 'Send the rules as a JSON object of the fields to change.';
+      throw badRequest(message, { _: message });
+    }
     const body = req.body as Record<string, unknown>;
     const { can: _can, ...sent } = body;
     const result = CompanyRules.safeParse({ ...before, ...sent });

@@ -184,4 +184,20 @@ describe('GET /api/bookings', () => {
     expect((await listed(o)).totalCents).toBe(await quoted(made.body.id));
     expect((await listed(o)).totalCents).toBeGreaterThan(before);
   });
+
+  it('the page is read while the session is checked, and answered only when the check passes: a signed-out session gets 401 and no rows', async () => {
+    const { owner, customer, chairs } = await company();
+    const o = await as(owner);
+    await o.post('/api/bookings', bookingBody(customer.id, '2027-06-05', [{ itemId: chairs.id, quantity: 10 }]));
+    const other = await as(owner);
+    expect((await o.get('/api/bookings')).body.total).toBe(1);
+    // The same person signs out everywhere from another browser: the first one's token is still signed, its session is not.
+    expect((await other.post('/api/auth/logout-all')).status).toBe(204);
+    const after = await o.get('/api/bookings');
+    expect(after.status).toBe(401);
+    expect(after.body.data).toBeUndefined();
+    expect(JSON.stringify(after.body)).not.toContain('Wren Ashgrove');
+    // No cookie at all: 401 before anything is read.
+    expect((await (await new ApiClient(app).init()).get('/api/bookings')).status).toBe(401);
+  });
 });
