@@ -91,6 +91,7 @@ export const ENTRY_KIND_LABELS: Record<string, string> = {
   security_deposit_refunded: 'Security deposit returned',
   security_deposit_applied: 'Security deposit applied',
   credit_refunded: 'Account credit paid back',
+  card_fee: 'Card processing fee',
   reversal: 'Reversal',
 };
 
