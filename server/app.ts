@@ -19,6 +19,18 @@ export interface AppOptions {
   serveClient?: boolean;
 }
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** A path with its secret parts (signing, pay and calendar links: long random segments, not record ids) masked for the log. */
+export function withoutTokens(url: string): string {
+  const [path, query] = url.split('?', 2);
+  const masked = path
+    .split('/')
+    .map((part) => (/^[A-Za-z0-9_-]{24,}(\.ics)?$/.test(part) && !UUID.test(part) ? '[token]' : part))
+    .join('/');
+  return query === undefined ? masked : `${masked}?${query.replace(/(token|code|key)=[^&]*/gi, '$1=[hidden]')}`;
+}
+
 /** The Express app without listen(), so tests can drive it with supertest. */
 export function createApp(options: AppOptions = {}) {
   const app = express();
@@ -37,7 +49,20 @@ export function createApp(options: AppOptions = {}) {
       hsts: env.APP_URL.startsWith('https://'),
     }),
   );
-  if (env.LOG_LEVEL !== 'silent') app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  if (env.LOG_LEVEL !== 'silent') {
+    app.use(
+      pinoHttp({
+        logger,
+        autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+        // One short line a request: what was asked and how it ended. Headers (cookies, tokens, the
+        // browser's whole self-description) stay out of the log, and out of every request's time.
+        serializers: {
+          req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({ id: req.id, method: req.method, url: withoutTokens(req.url), remoteAddress: req.remoteAddress }),
+          res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+        },
+      }),
+    );
+  }
 
   // Webhooks first: they need the raw body for their signature, and carry no cookies or CSRF token.
   app.use('/api/webhooks', webhooksRouter);

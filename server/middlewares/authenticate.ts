@@ -1,6 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
-import { QueryTypes, type InferAttributes } from 'sequelize';
-import { sequelize } from '../db';
+import type { InferAttributes } from 'sequelize';
+import { preparedQuery } from '../db';
 import { unauthenticated } from '../errors';
 import { Organization, Session, User } from '../models';
 import { clearSessionCookie, readSessionClaims, type SessionClaims } from '../services/sessions';
@@ -32,13 +32,16 @@ async function loadSession(sid: string) {
     LEFT JOIN users u ON u.id = s.user_id
     LEFT JOIN organizations o ON o.id = u.organization_id
    WHERE s.id = $1`;
-  // Left joins: a session whose user or company is gone reads back with their ids null.
-  const [row] = await sequelize.query<{ s: InferAttributes<Session>; u: InferAttributes<User>; o: InferAttributes<Organization> }>(sessionQuery, {
-    bind: [sid],
-    type: QueryTypes.SELECT,
-    nest: true,
-  });
-  if (!row) return null;
+  // Left joins: a session whose user or company is gone reads back with their ids null. A
+  // prepared statement: planned once per pooled connection, not on every request.
+  const [flat] = await preparedQuery<Record<string, unknown>>('auth-session', sessionQuery, [sid]);
+  if (!flat) return null;
+  // "s.id" -> row.s.id: the three models' attributes side by side.
+  const row = { s: {}, u: {}, o: {} } as { s: InferAttributes<Session>; u: InferAttributes<User>; o: InferAttributes<Organization> };
+  for (const [key, value] of Object.entries(flat)) {
+    const dot = key.indexOf('.');
+    (row[key.slice(0, dot) as 's' | 'u' | 'o'] as unknown as Record<string, unknown>)[key.slice(dot + 1)] = value;
+  }
   const built = { isNewRecord: false, raw: true };
   return {
     session: Session.build(row.s, built),

@@ -1,7 +1,6 @@
-import type pg from 'pg';
 import type { BookingListQuery, BookingListRow, BookingStatus } from '../../shared/schemas/bookings';
 import type { ListResponse } from '../../shared/schemas/common';
-import { sequelize } from '../db';
+import { preparedQuery } from '../db';
 
 interface ListedRow {
   total: string;
@@ -64,7 +63,7 @@ export async function listBookings(organizationId: string, q: BookingListQuery):
   const filters = values.length;
   const limit = param(q.pageSize);
   const offset = param((q.page - 1) * q.pageSize);
-  const rows = await prepared<ListedRow>(
+  const rows = await preparedQuery<ListedRow>(
     `bookings-list-${shape.join('') || 'all'}`,
     `SELECT b.id, b.reference, b.status, b.event_start, b.event_end, b.site_line1, b.site_city, b.guest_count, b.currency, b.total_cents,
             c.id AS customer_id, c.name AS customer_name, (${count}) AS total
@@ -76,19 +75,8 @@ export async function listBookings(organizationId: string, q: BookingListQuery):
   );
   if (rows.length || q.page === 1) return { data: rows.map(presentListRow), total: Number(rows[0]?.total ?? 0) };
   // Past the last page no row carries the count: it is asked for alone.
-  const [{ count: total }] = await prepared<{ count: string }>(`bookings-count-${shape.join('') || 'all'}`, count, values.slice(0, filters));
+  const [{ count: total }] = await preparedQuery<{ count: string }>(`bookings-count-${shape.join('') || 'all'}`, count, values.slice(0, filters));
   return { data: [], total: Number(total) };
-}
-
-/** A named prepared statement on a pooled connection (pg keeps the plan per connection under its name). */
-async function prepared<T>(name: string, text: string, values: unknown[]): Promise<T[]> {
-  const manager = sequelize.connectionManager as unknown as { getConnection(o: object): Promise<pg.PoolClient>; releaseConnection(c: pg.PoolClient): Promise<void> };
-  const connection = await manager.getConnection({ type: 'SELECT' });
-  try {
-    return (await connection.query<T & pg.QueryResultRow>({ name, text, values })).rows;
-  } finally {
-    await manager.releaseConnection(connection);
-  }
 }
 
 /** The same page for someone who may not see prices (the crew): no totals. */
