@@ -10,10 +10,10 @@ import type { CrewAssignmentInput, PhotoFields, ReturnCheckInput, SiteCheckInput
 import { stakingReadiness } from '../../shared/siteSafety';
 import type { Transaction } from '../db';
 import { badRequest, conflict, forbidden } from '../errors';
-import { Booking, BookingCrew, BookingLine, FieldPhoto, Item, ReturnCheck, ReturnCheckLine, SiteCheck, User } from '../models';
+import { Booking, BookingCrew, BookingLine, FieldPhoto, Item, ReturnCheck, ReturnCheckLine, SiteCheck, StoredFile, User } from '../models';
 import { authorize, can, sameOrganization } from '../policies';
 import { stopItems, type FieldBookingRow } from '../presenters/field';
-import { storeFile } from '../services/storage';
+import { deleteFile, storeFile } from '../services/storage';
 import { audit } from './audit';
 import { changeBookingStatus } from './bookings';
 
@@ -148,6 +148,18 @@ export async function addPhoto(
   );
   await auditBooking(actor, booking, 'field.photo_added', { photoId: photo.id, stage: photo.stage, sha256: stored.sha256, size: stored.size }, req, t);
   return photo;
+}
+
+/** Takes a photo off its booking (and its stored file), with an audit row that keeps its hash. */
+export async function removePhoto(actor: User, photoId: string, req: Request, t: Transaction) {
+  const photo = sameOrganization(actor, await FieldPhoto.findByPk(photoId, { transaction: t, lock: t.LOCK.UPDATE }), 'That photo');
+  const booking = await lockBooking(actor, photo.bookingId, t);
+  authorize(actor, 'field', 'removePhoto', booking, photo);
+  const file = await StoredFile.findOne({ where: { id: photo.storedFileId, organizationId: actor.organizationId }, attributes: ['id', 'sha256', 'size'], transaction: t });
+  await photo.destroy({ transaction: t });
+  await deleteFile(actor.organizationId, photo.storedFileId, t);
+  await auditBooking(actor, booking, 'field.photo_removed', { photoId: photo.id, stage: photo.stage, sha256: file?.sha256 ?? null, size: file?.size ?? null }, req, t);
+  return booking;
 }
 
 /**

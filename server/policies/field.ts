@@ -14,6 +14,12 @@ export const fieldPolicy = {
   work: (actor: User, booking: Booking) => actor.organizationId === booking.organizationId && fieldHand(actor) && ['reserved', 'out', 'returned'].includes(booking.status),
   markDelivered: (actor: User, booking: Booking) => actor.organizationId === booking.organizationId && fieldHand(actor) && ['reserved', 'out'].includes(booking.status),
   markSetUp: (actor: User, booking: Booking) => actor.organizationId === booking.organizationId && fieldHand(actor) && booking.status === 'out',
+  /**
+   * A photo taken by mistake comes off while the stock is booked or out: by whoever took it, or
+   * the office. Once the stock is back and checked in, the photos are the record of its state.
+   */
+  removePhoto: (actor: User, booking: Booking, photo: { uploadedById: string | null }) =>
+    actor.organizationId === booking.organizationId && fieldHand(actor) && ['reserved', 'out'].includes(booking.status) && (desk(actor) || photo.uploadedById === actor.id),
   /** The pickup check-in happens while the stock is out. */
   checkIn: (actor: User, booking: Booking) => actor.organizationId === booking.organizationId && fieldHand(actor) && booking.status === 'out',
   assignCrew: (actor: User, booking: Booking) => actor.organizationId === booking.organizationId && desk(actor) && !['closed', 'cancelled'].includes(booking.status),

@@ -128,7 +128,7 @@ export function presentSiteCheck(booking: Booking, check: SiteCheck | null, name
   };
 }
 
-export function presentPhoto(photo: FieldPhoto, file: Pick<StoredFile, 'contentType' | 'size'>, names: Map<string, string>): PhotoRow {
+export function presentPhoto(photo: FieldPhoto, file: Pick<StoredFile, 'contentType' | 'size'>, names: Map<string, string>, canRemove: boolean): PhotoRow {
   return {
     id: photo.id,
     stage: photo.stage,
@@ -139,6 +139,7 @@ export function presentPhoto(photo: FieldPhoto, file: Pick<StoredFile, 'contentT
     uploadedBy: photo.uploadedById ? (names.get(photo.uploadedById) ?? 'Former user') : 'Unknown',
     createdAt: photo.createdAt.toISOString(),
     url: `/api/field/photos/${photo.id}`,
+    canRemove,
   };
 }
 

@@ -116,7 +116,7 @@ export async function fieldBooking(viewer: User, organization: Organization, boo
     pickup: presentStop(booking, 'pickup', parts),
     siteCheck: presentSiteCheck(booking, check, names),
     safety: siteSafety({ tents, guestCount: booking.guestCount, seating: booking.seating }, rules),
-    photos: photos.filter((p) => fileBy.has(p.storedFileId)).map((p) => presentPhoto(p, fileBy.get(p.storedFileId)!, names)),
+    photos: photos.filter((p) => fileBy.has(p.storedFileId)).map((p) => presentPhoto(p, fileBy.get(p.storedFileId)!, names, can(viewer, 'field', 'removePhoto', booking, p))),
     returnCheck: presentReturnCheck(booking, returnCheck, names),
     timeZone: organization.timeZone,
     can: {

@@ -168,6 +168,8 @@ export interface PhotoRow {
   uploadedBy: string;
   createdAt: string;
   url: string;
+  /** The viewer may take it off (taken by mistake; fieldPolicy.removePhoto). */
+  canRemove: boolean;
 }
 
 export interface SiteCheckRow {

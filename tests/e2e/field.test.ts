@@ -88,6 +88,14 @@ describe('a crew member runs a stop from a phone', () => {
     await page.getByText('Photo saved.').waitFor();
     await page.getByRole('img', { name: /Damage photo/ }).waitFor();
     expect(await sideways(page)).toBeLessThanOrEqual(0);
+    // A second shot taken by mistake comes off again, with the typed count kept.
+    await page.getByLabel('Photo of the damage, Sidewall 7x20 (field test)').setInputFiles({ name: 'thumb.png', mimeType: 'image/png', buffer: PNG });
+    await expect.poll(() => page.getByRole('img', { name: /Damage photo/ }).count()).toBe(2);
+    await page.getByRole('button', { name: /^Remove Damage photo/ }).last().click();
+    await page.getByRole('dialog', { name: 'Remove this photo?' }).getByRole('button', { name: 'Remove photo' }).click();
+    await page.getByText(/Damage photo.* removed\./).waitFor();
+    await expect.poll(() => page.getByRole('img', { name: /Damage photo/ }).count()).toBe(1);
+    expect(await page.getByLabel('What is damaged, Sidewall 7x20 (field test)').inputValue()).toBe('Torn along the top seam');
 
     // Finishing without a count that makes sense is refused with the typed values kept.
     await page.getByLabel('Damaged, Folding chair (field test)', { exact: true }).fill('49');

@@ -9,7 +9,7 @@ import {
 } from '../../../shared/schemas/field';
 import { IdParams } from '../../../shared/schemas/common';
 import { dateInZone } from '../../../shared/dates';
-import { addPhoto, assignCrew, markReadyToStake, markStop, saveReturnCheck, saveSiteCheck } from '../../commands/field';
+import { addPhoto, assignCrew, markReadyToStake, markStop, removePhoto, saveReturnCheck, saveSiteCheck } from '../../commands/field';
 import { createCalendarFeed, revokeCalendarFeed } from '../../commands/fieldCalendar';
 import { sequelize, withTransaction } from '../../db';
 import { renderDaySheetPdf } from '../../documents/daySheet';
@@ -143,6 +143,13 @@ fieldRouter.get('/photos/:id', authenticate, validate(IdParams, 'params'), async
   res.setHeader('Content-Disposition', `inline; filename="${file.filename.replace(/["\\\r\n]/g, '_')}"`);
   res.setHeader('Cache-Control', 'private, max-age=3600');
   res.send(file.data);
+});
+
+/** A photo taken by mistake comes off (see fieldPolicy.removePhoto); answers its booking's field page. */
+fieldRouter.delete('/photos/:id', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user, organization } = auth(req);
+  const booking = await withTransaction((t) => removePhoto(user, parsed<{ id: string }>(res, 'params').id, req, t));
+  res.json(await fieldBooking(user, organization, booking.id));
 });
 
 // --- crew ------------------------------------------------------------------------------------

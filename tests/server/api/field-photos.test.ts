@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../../server/app';
-import { FieldPhoto, StoredFile } from '../../../server/models';
+import { AuditLog, Booking, FieldPhoto, StoredFile } from '../../../server/models';
+import { buildUser } from '../../factories';
 import { PHOTO_MAX_BYTES } from '../../../shared/schemas/field';
 import type { ApiClient } from '../../support';
 import { ApiClient as Client } from '../../support';
@@ -73,5 +74,39 @@ describe('field photos', () => {
     expect(Buffer.compare(got.body as Buffer, PNG)).toBe(0);
     // Another company's people do not see it.
     expect((await (await as(other.crew)).get(photo.url)).status).toBe(404);
+  });
+
+  it('a photo taken by mistake comes off (its taker or the office) until the stock is back; the file goes with it and the trail keeps its hash', async () => {
+    const c = await fieldCompany();
+    const other = await fieldCompany();
+    const office = await as(c.office);
+    const a = await booking(office, c.customer.id, '2027-06-19', [{ itemId: c.wall.id, quantity: 4, description: 'Sidewall 7x20' }]);
+    const crew = await as(c.crew);
+    const mate = await as(await buildUser({ organizationId: c.organization.id, role: 'crew', name: 'Second Crew' }));
+    const first = (await upload(crew, a.id, PNG, 'blurry.png', { stage: 'site', caption: 'Blurry' })).body.photos[0];
+    const second = (await upload(crew, a.id, PNG, 'lawn.png', { stage: 'site', caption: 'Lawn' })).body.photos[1];
+    expect([first.canRemove, second.canRemove]).toEqual([true, true]);
+    // Another crew member sees them, but they are not theirs to take off; the bookkeeper is not on the field; another company cannot see them.
+    expect((await mate.get(`/api/field/bookings/${a.id}`)).body.photos.map((p: { canRemove: boolean }) => p.canRemove)).toEqual([false, false]);
+    expect((await mate.delete(`/api/field/photos/${first.id}`)).status).toBe(403);
+    expect((await (await as(c.bookkeeper)).delete(`/api/field/photos/${first.id}`)).status).toBe(403);
+    expect((await (await as(other.owner)).delete(`/api/field/photos/${first.id}`)).status).toBe(404);
+    expect((await (await new Client(app).init()).delete(`/api/field/photos/${first.id}`)).status).toBe(401);
+
+    const removed = await crew.delete(`/api/field/photos/${first.id}`);
+    expect(removed.status).toBe(200);
+    expect(removed.body.photos.map((p: { id: string }) => p.id)).toEqual([second.id]);
+    expect(await FieldPhoto.count({ where: { id: first.id } })).toBe(0);
+    expect(await StoredFile.count({ where: { organizationId: c.organization.id } })).toBe(1);
+    expect((await crew.get(first.url)).status).toBe(404);
+    const trail = await AuditLog.findOne({ where: { subjectId: a.id, action: 'field.photo_removed' } });
+    expect(trail?.data).toMatchObject({ photoId: first.id, stage: 'site', sha256: expect.stringMatching(/^[0-9a-f]{64}$/) });
+    expect((await crew.delete(`/api/field/photos/${first.id}`)).status).toBe(404);
+
+    // Once the stock is back and checked in, the photos are the record: nobody takes one off.
+    await Booking.update({ status: 'returned' }, { where: { id: a.id } });
+    expect((await office.get(`/api/field/bookings/${a.id}`)).body.photos[0].canRemove).toBe(false);
+    expect((await office.delete(`/api/field/photos/${second.id}`)).status).toBe(403);
+    expect(await FieldPhoto.count({ where: { id: second.id } })).toBe(1);
   });
 });

@@ -209,6 +209,12 @@ export async function securityFixture(app: Express) {
     },
     calendarFile: async () => `${(await withTransaction((t) => createCalendarFeed(feedUser, null as never, t))).token}.ics`,
     signingToken: () => link(pendingDoc.id),
+    /** A photo the office took on the reserved booking (the crew may not take it off; the office and the owner may). */
+    photo: async () => {
+      const body = await ok(office, { method: 'POST', url: `/api/field/bookings/${reserved.id}/photos`, query: { stage: 'site' }, upload: { bytes: PNG, filename: 'extra.png', contentType: 'image/png' } });
+      const photos = body.photos as { id: string }[];
+      return photos[photos.length - 1].id;
+    },
     signatureRequest: async () => (await ok(office, { method: 'POST', url: `/api/documents/${agreement.id}/signature-request`, body: {} })).id as string,
   };
 

@@ -215,6 +215,7 @@ const MATRIX: Record<string, Row> = {
   'PUT /api/field/bookings/:bookingId/return-check':   row('401  401  ok   ok   403  ok   404', { params: bookingId((f) => f.bookings.out.id), body: () => ({ lines: [], submit: false }) }),
   'POST /api/field/bookings/:bookingId/photos':        row('401  401  ok   ok   403  ok   404', { params: bookingId((f) => f.bookings.reserved.id), query: () => ({ stage: 'site' }), upload: (f) => f.uploads.photo }),
   'GET /api/field/photos/:id':                   row('401  401  ok   ok   403  ok   404', { params: id((f) => f.photoId) }),
+  'DELETE /api/field/photos/:id':                row('401  401  403  ok   403  ok   404', { params: async (f) => ({ id: await f.fresh.photo() }) }), // the taker or the office; the office took this one
   'GET /api/field/crew-members':                 row('401  401  ok   ok   403  ok   ok'),
   'GET /api/field/bookings/:bookingId/crew':     row('401  401  ok   ok   403  ok   404', { params: bookingId((f) => f.bookings.reserved.id) }),
   'PUT /api/field/bookings/:bookingId/crew':     row('401  401  403  ok   403  ok   404', { params: bookingId((f) => f.bookings.reserved.id), body: (f) => ({ userIds: [f.a.crew.id] }) }),

@@ -167,7 +167,7 @@ export function ReturnCheckForm({ booking }: { booking: FieldBooking }) {
                 ) : null}
                 {hasDamage ? (
                   <>
-                    <PhotoList photos={photos} empty="No damage photos yet." />
+                    <PhotoList photos={photos} bookingId={bookingId} empty="No damage photos yet." />
                     <PhotoUpload bookingId={bookingId} stage="damage" lineKey={line.key} label={<>Photo of the damage<span className="sr-only">, {line.description}</span></>} />
                   </>
                 ) : null}

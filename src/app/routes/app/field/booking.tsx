@@ -54,7 +54,7 @@ export default function FieldBookingRoute() {
               </SectionCard>
               <SectionCard title="Photos" description="The site before, the stock as delivered and the tent as set up.">
                 <div className="space-y-4">
-                  <PhotoList photos={photos} />
+                  <PhotoList photos={photos} bookingId={id} />
                   {b.can.work ? (
                     <PhotoUpload bookingId={id} stage={b.delivery.progress.setUpAt ? 'set_up' : b.delivery.progress.deliveredAt ? 'delivered' : 'site'} label="Take a photo" />
                   ) : null}
