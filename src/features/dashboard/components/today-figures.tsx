@@ -1,5 +1,6 @@
 import { Link } from 'react-router';
 import type { DashboardSummary } from '@shared/schemas/dashboard';
+import { addDays } from '@shared/dates';
 import { formatMoney } from '@shared/money';
 import { paths } from '@/config/paths';
 import { cn } from '@/lib/cn';
@@ -9,14 +10,15 @@ interface Figure {
   value: string;
   /** A second line: what the number means, or the amount behind a count. */
   note?: string;
-  to: string;
+  /** The list it counts; none where no list shows exactly those (a link must not show something else). */
+  to?: string;
   /** Something to act on today. */
   attention?: boolean;
 }
 
 const plural = (n: number, one: string, many: string) => `${n.toLocaleString('en-US')} ${n === 1 ? one : many}`;
 
-/** The figures behind Home's "Today" panel, each a link to the list it counts. */
+/** The figures behind Home's "Today" panel, each a link to the list it counts where there is one. */
 export function todayFigures(d: DashboardSummary, opts: { deskWork: boolean }): Figure[] {
   const out: Figure[] = [];
   if (d.stops) {
@@ -31,13 +33,13 @@ export function todayFigures(d: DashboardSummary, opts: { deskWork: boolean }): 
     label: 'Events in the next 7 days',
     value: String(d.bookings.startingThisWeek),
     note: 'Reserved or out',
-    to: `${paths.app.bookings.getHref()}?status=reserved,out&from=${d.today}`,
+    to: `${paths.app.bookings.getHref()}?status=reserved,out&from=${d.today}&to=${addDays(d.today, 6)}`,
   });
   // Quotes and signatures are the office's to chase.
   if (opts.deskWork) {
     out.push(
     { label: 'Quotes waiting', value: String(d.bookings.quoted), note: 'Sent, not yet reserved', to: `${paths.app.bookings.getHref()}?status=quoted` },
-    { label: 'Agreements to be signed', value: String(d.bookings.awaitingSignature), note: 'Sent, link still valid', to: `${paths.app.bookings.getHref()}?status=quoted` },
+    { label: 'Agreements to be signed', value: String(d.bookings.awaitingSignature), note: 'Sent, link still valid' },
     );
   }
   if (d.money) {
@@ -51,7 +53,7 @@ export function todayFigures(d: DashboardSummary, opts: { deskWork: boolean }): 
         attention: m.overdueCount > 0,
       },
       { label: 'Owed to you', value: formatMoney(m.openCents, m.currency), note: plural(m.openCount, 'open invoice', 'open invoices'), to: `${paths.app.invoices.getHref()}?status=open,partly_paid` },
-      { label: 'Received, last 7 days', value: formatMoney(m.receivedLast7DaysCents, m.currency), note: 'Cash, check, transfer and card', to: `${paths.app.invoices.getHref()}?status=paid,partly_paid` },
+      { label: 'Received, last 7 days', value: formatMoney(m.receivedLast7DaysCents, m.currency), note: 'Cash, check, transfer and card' },
     );
   }
   return out;
@@ -62,19 +64,30 @@ export function TodayFigures({ summary, deskWork }: { summary: DashboardSummary;
     <ul className="grid gap-3 sm:grid-cols-2 xl:grid-cols-4" aria-label="Today’s figures">
       {todayFigures(summary, { deskWork }).map((f) => (
         <li key={f.label}>
-          <Link
-            to={f.to}
-            className={cn(
-              'block h-full rounded-lg border p-4',
-              f.attention ? 'border-rust-200 bg-rust-50 hover:bg-rust-100' : 'border-canvas-200 bg-white hover:bg-canvas-50',
-            )}
-          >
-            <span className="block text-sm font-semibold text-canvas-700">{f.label}</span>
-            <span className={cn('mt-1 block text-2xl font-bold tabular-nums', f.attention ? 'text-rust-700' : 'text-canvas-900')}>{f.value}</span>
-            {f.note ? <span className="mt-1 block text-sm text-canvas-600">{f.note}</span> : null}
-          </Link>
+          {f.to ? (
+            <Link
+              to={f.to}
+              className={cn('block h-full rounded-lg border p-4', f.attention ? 'border-rust-200 bg-rust-50 hover:bg-rust-100' : 'border-canvas-200 bg-white hover:bg-canvas-50')}
+            >
+              <FigureText figure={f} />
+            </Link>
+          ) : (
+            <div className="h-full rounded-lg border border-canvas-200 bg-white p-4">
+              <FigureText figure={f} />
+            </div>
+          )}
         </li>
       ))}
     </ul>
+  );
+}
+
+function FigureText({ figure: f }: { figure: Figure }) {
+  return (
+    <>
+      <span className="block text-sm font-semibold text-canvas-700">{f.label}</span>
+      <span className={cn('mt-1 block text-2xl font-bold tabular-nums', f.attention ? 'text-rust-700' : 'text-canvas-900')}>{f.value}</span>
+      {f.note ? <span className="mt-1 block text-sm text-canvas-600">{f.note}</span> : null}
+    </>
   );
 }
