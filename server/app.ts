@@ -21,12 +21,18 @@ export interface AppOptions {
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-/** A path with its secret parts (signing, pay and calendar links: long random segments, not record ids) masked for the log. */
+/**
+ * A path with its secret parts (signing, pay and calendar links: long random segments, not record
+ * ids) masked for the log. A segment goes whole when any of its dot-separated pieces is long and
+ * random: a pay link is `<invoice id>.<generation>.<end day>.<HMAC>`, and its id must not stay
+ * beside a masked HMAC either; a feed is `<token>.ics`.
+ */
 export function withoutTokens(url: string): string {
   const [path, query] = url.split('?', 2);
+  const secret = (piece: string) => /^[A-Za-z0-9_-]{24,}$/.test(piece) && !UUID.test(piece);
   const masked = path
     .split('/')
-    .map((part) => (/^[A-Za-z0-9_-]{24,}(\.ics)?$/.test(part) && !UUID.test(part) ? '[token]' : part))
+    .map((part) => (part.split('.').some(secret) ? '[token]' : part))
     .join('/');
   return query === undefined ? masked : `${masked}?${query.replace(/(token|code|key)=[^&]*/gi, '$1=[hidden]')}`;
 }
@@ -64,6 +70,12 @@ export function createApp(options: AppOptions = {}) {
     );
   }
 
+  // No API answer is kept by a browser or a proxy: they carry customers' and the company's data
+  // (and sign-in links' state). A route that sends a file may say more (private, no-store) itself.
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   // Webhooks first: they need the raw body for their signature, and carry no cookies or CSRF token.
   app.use('/api/webhooks', webhooksRouter);
   app.use('/api', cookieParser(), express.json({ limit: '1mb' }), requireJson, csrf, apiRouter(), notFoundHandler);

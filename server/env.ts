@@ -13,7 +13,14 @@ const EnvSchema = z.object({
   MAIL_FROM: z.string().default('Guyline <no-reply@guyline.test>'),
   /** The local fakes' own HTTP API (the mail sink's caught messages); set when the fakes run. */
   MAIL_SINK_URL: z.string().url().optional(),
+  /** The token the mail sink's HTTP API asks for (npm start makes one). */
+  MAIL_SINK_TOKEN: z.string().min(16, 'MAIL_SINK_TOKEN must be at least 16 characters').optional(),
   FAKES: z.enum(['on', 'off']).default('off'),
+  /**
+   * The demo that `npm start` runs: mail is caught by the local sink and the demo sign-ins work.
+   * A production server refuses to start with the fakes on unless this says so.
+   */
+  GUYLINE_DEMO: z.enum(['on', 'off']).default('off'),
   /** Card payments: the processor's secret key; card payments are off without one. */
   STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_/, 'STRIPE_SECRET_KEY must be an sk_test_ or sk_live_ key').optional(),
   /** Where the processor's API is: the local fake (http://127.0.0.1:2527) or empty for the real service. */
@@ -45,7 +52,15 @@ function load(): Env {
     console.error(`Guyline cannot start: setting ${first.path.join('.')}: ${first.message}`);
     process.exit(1);
   }
-  return parsed.data;
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && e.FAKES === 'on' && e.GUYLINE_DEMO !== 'on') {
+    console.error(
+      'Guyline cannot start: FAKES=on catches every e-mail and takes no real card payments; a production server runs ' +
+        'with FAKES=off, or set GUYLINE_DEMO=on to run the demo (npm start does).',
+    );
+    process.exit(1);
+  }
+  return e;
 }
 
 export const env: Env = load();

@@ -11,6 +11,10 @@ await startWorkers();
 const app = createApp({ serveClient: env.NODE_ENV === 'production' });
 const server = app.listen(env.PORT, env.HOST, () => {
   logger.info(`Guyline listening on http://${env.HOST}:${env.PORT}`);
+  if (env.FAKES === 'on') {
+    // Said once, plainly: nothing this server mails leaves the machine.
+    console.log('[guyline] Demo: e-mail is caught by the local mail sink, not delivered; each company\'s owner reads its own at /app/dev/mail.');
+  }
 });
 
 async function shutdown() {

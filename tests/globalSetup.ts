@@ -8,6 +8,8 @@ declare module 'vitest' {
   export interface ProvidedContext {
     smtpUrl: string;
     mailSinkUrl: string;
+    /** The mail sink's API answers only with this token (as in npm start). */
+    mailSinkToken: string;
     appUrl: string;
     /** The card-payment fake: its API and payment pages, and the secret its webhooks are signed with. */
     cardFakeUrl: string;
@@ -69,7 +71,8 @@ export default async function setup(project: TestProject) {
   await sequelize.close();
 
   const { startMailSink } = await import('../server/fakes/mailSink');
-  const sink = await startMailSink({ smtpPort: 0, httpPort: 0 });
+  const mailSinkToken = randomBytes(24).toString('base64url');
+  const sink = await startMailSink({ smtpPort: 0, httpPort: 0, token: mailSinkToken });
 
   // A real app server (built client, job workers) for the browser tests; its workers also send
   // the mail that the API tests queue, and handle the card fake's webhooks.
@@ -91,7 +94,10 @@ export default async function setup(project: TestProject) {
       APP_URL: appUrl,
       SMTP_URL: sink.smtpUrl,
       MAIL_SINK_URL: sink.httpUrl,
+      MAIL_SINK_TOKEN: mailSinkToken,
       FAKES: 'on',
+      // A production server with the fakes on runs only as the demo (npm start sets the same).
+      GUYLINE_DEMO: 'on',
       STRIPE_SECRET_KEY: stripeSecretKey,
       STRIPE_API_URL: card.url,
       STRIPE_WEBHOOK_SECRET: stripeWebhookSecret,
@@ -103,6 +109,7 @@ export default async function setup(project: TestProject) {
 
   project.provide('smtpUrl', sink.smtpUrl);
   project.provide('mailSinkUrl', sink.httpUrl);
+  project.provide('mailSinkToken', mailSinkToken);
   project.provide('appUrl', appUrl);
   project.provide('cardFakeUrl', card.url);
   project.provide('stripeWebhookSecret', stripeWebhookSecret);

@@ -4,6 +4,7 @@ import { afterAll, inject } from 'vitest';
 // before any server module reads its settings.
 process.env.SMTP_URL = inject('smtpUrl');
 process.env.MAIL_SINK_URL = inject('mailSinkUrl');
+process.env.MAIL_SINK_TOKEN = inject('mailSinkToken');
 process.env.APP_URL = inject('appUrl');
 process.env.FAKES = 'on';
 process.env.STRIPE_SECRET_KEY = inject('stripeSecretKey');

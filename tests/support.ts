@@ -1,8 +1,12 @@
+import { createRequire } from 'node:module';
 import type { Express } from 'express';
 import request from 'supertest';
 import { inject } from 'vitest';
 import { CSRF_COOKIE, CSRF_HEADER } from '../shared/types';
 import type { CaughtMail } from '../shared/schemas/mail';
+
+// superagent's cookie jar (the cookiejar package): `All` reads a cookie whatever its domain and path.
+const { CookieAccessInfo } = createRequire(import.meta.url)('cookiejar') as { CookieAccessInfo: { All: unknown } };
 
 let seq = 0;
 /** A unique e-mail for this test run, so parallel tests never share accounts or mail. */
@@ -23,20 +27,31 @@ export function uniqueIp() {
  */
 export class ApiClient {
   readonly agent: ReturnType<typeof request.agent>;
-  csrf = '';
   ip: string;
+  private csrfOverride: string | null = null;
+
+  /**
+   * The CSRF token to send: the `guyline_csrf` cookie the browser holds now (the server renews it
+   * when a session starts, since the token is bound to the session), unless a test set its own.
+   */
+  get csrf(): string {
+    if (this.csrfOverride !== null) return this.csrfOverride;
+    const jar = (this.agent as unknown as { jar: { getCookie(name: string, access: unknown): { value: string } | undefined } }).jar;
+    return jar.getCookie(CSRF_COOKIE, CookieAccessInfo.All)?.value ?? '';
+  }
+  set csrf(value: string) {
+    this.csrfOverride = value;
+  }
 
   constructor(app: Express, opts: { ip?: string } = {}) {
     this.agent = request.agent(app);
     this.ip = opts.ip ?? uniqueIp();
   }
 
+  /** Responses' cookies go to the agent's jar; a renewed CSRF cookie replaces a token the test set. */
   private remember(res: request.Response) {
     const cookies = ([] as string[]).concat(res.headers['set-cookie'] ?? []);
-    for (const c of cookies) {
-      const m = c.match(new RegExp(`^${CSRF_COOKIE}=([^;]+)`));
-      if (m) this.csrf = m[1];
-    }
+    if (cookies.some((c) => c.startsWith(`${CSRF_COOKIE}=`))) this.csrfOverride = null;
     return res;
   }
 
@@ -59,6 +74,9 @@ export class ApiClient {
   post(url: string, body?: unknown, opts: { csrf?: boolean } = {}) {
     return this.write('post', url, body, opts.csrf ?? true);
   }
+  put(url: string, body?: unknown, opts: { csrf?: boolean } = {}) {
+    return this.write('put', url, body, opts.csrf ?? true);
+  }
   patch(url: string, body?: unknown, opts: { csrf?: boolean } = {}) {
     return this.write('patch', url, body, opts.csrf ?? true);
   }
@@ -73,12 +91,18 @@ export class ApiClient {
   }
 }
 
+/** Everything the test run's mail sink caught, newest first (the harness reads all companies' mail). */
+export async function allCaughtMail(): Promise<CaughtMail[]> {
+  const r = await fetch(`${inject('mailSinkUrl')}/messages`, { headers: { authorization: `Bearer ${inject('mailSinkToken')}` } });
+  if (!r.ok) throw new Error(`The mail sink answered ${r.status}`);
+  return (await r.json()) as CaughtMail[];
+}
+
 /** Waits for the mail sink to catch a message to `to` (the app server's job worker sends it). */
 export async function waitForMail(to: string, opts: { subject?: RegExp; timeoutMs?: number; count?: number } = {}): Promise<CaughtMail> {
   const until = Date.now() + (opts.timeoutMs ?? 20_000);
-  const sink = inject('mailSinkUrl');
   while (Date.now() < until) {
-    const all = (await (await fetch(`${sink}/messages`)).json()) as CaughtMail[];
+    const all = await allCaughtMail();
     const mine = all.filter((m) => m.to.includes(to) && (!opts.subject || opts.subject.test(m.subject)));
     if (mine.length >= (opts.count ?? 1)) return mine[0];
     await new Promise((r) => setTimeout(r, 200));
@@ -88,7 +112,7 @@ export async function waitForMail(to: string, opts: { subject?: RegExp; timeoutM
 
 /** Every message the sink caught for one address, newest first. */
 export async function mailTo(to: string): Promise<CaughtMail[]> {
-  const all = (await (await fetch(`${inject('mailSinkUrl')}/messages`)).json()) as CaughtMail[];
+  const all = await allCaughtMail();
   return all.filter((m) => m.to.includes(to));
 }
 

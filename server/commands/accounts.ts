@@ -1,32 +1,39 @@
-import bcrypt from 'bcryptjs';
 import type { Request } from 'express';
-import { Op } from 'sequelize';
+import { Op, UniqueConstraintError } from 'sequelize';
 import { ROLE_LABELS, type Role } from '../../shared/types';
 import type { Transaction } from '../db';
 import { env } from '../env';
-import { badRequest, conflict } from '../errors';
+import { badRequest, conflict, HttpError } from '../errors';
 import { AuthToken, Organization, User } from '../models';
 import type { TokenPurpose } from '../models/AuthToken';
 import { queueMail } from '../services/mailer';
 import { revokeAllSessions } from '../services/sessions';
 import { hashToken, newToken } from '../services/tokens';
-import { ensureCompanyCertificate } from '../services/companyCertificate';
+import { checkPassword, DEMO_PASSWORD, demoOn, hashNewPassword } from '../services/passwords';
 import { audit } from './audit';
 
-const BCRYPT_ROUNDS = 12;
+export { hashPassword } from '../services/passwords';
 export const INVITE_DAYS = 7;
 export const RESET_MINUTES = 60;
 
-export const hashPassword = (password: string) => bcrypt.hash(password, BCRYPT_ROUNDS);
-
-/** A hash of a random password: comparing against it costs as much as a real check, so timing tells nothing. */
-const decoyHash = bcrypt.hashSync('decoy-password-never-used', BCRYPT_ROUNDS);
+/**
+ * The account that signs in with this e-mail: the one user with a password. Invitations (users
+ * without one) never are: several companies may invite the same address (migration 20261205-0010).
+ */
+export function accountOf(email: string, transaction?: Transaction) {
+  return User.findOne({ where: { email, passwordHash: { [Op.ne]: null } }, transaction });
+}
 
 /** Checks an e-mail and password; null when either is wrong or the account cannot sign in. */
 export async function verifyCredentials(email: string, password: string): Promise<User | null> {
-  const user = await User.findOne({ where: { email } });
-  const ok = await bcrypt.compare(password, user?.passwordHash ?? decoyHash);
-  if (!user || !ok || user.status !== 'active' || !user.passwordHash) return null;
+  if (password === DEMO_PASSWORD && !demoOn()) {
+    // Whatever the address: says nothing about accounts, and a demo sign-in left in a real
+    // database (a seed run by mistake) opens nothing.
+    throw new HttpError(401, 'demo_password', 'The demo password works only in the demo. If this account has it, reset the password to choose your own.');
+  }
+  const user = await accountOf(email);
+  const ok = await checkPassword(password, user?.passwordHash ?? null);
+  if (!user || !ok || user.status !== 'active') return null;
   return user;
 }
 
@@ -65,48 +72,23 @@ export async function findLiveToken(token: string, purpose: TokenPurpose, transa
   return { row, user };
 }
 
-export async function signup(
-  input: { organizationName: string; name: string; email: string; password: string },
-  req: Request,
-  transaction: Transaction,
-) {
-  if (await User.findOne({ where: { email: input.email }, transaction })) {
-    throw conflict('That e-mail already has an account. Sign in, or reset the password.', 'email_taken', {
-      email: 'That e-mail already has an account.',
-    });
-  }
-  const organization = await Organization.create({ name: input.organizationName }, { transaction });
-  const user = await User.create(
-    {
-      organizationId: organization.id,
-      name: input.name,
-      email: input.email,
-      passwordHash: await hashPassword(input.password),
-      role: 'owner',
-      status: 'active',
-    },
-    { transaction },
-  );
-  // Each company signs its agreements with its own certificate, made now.
-  await ensureCompanyCertificate(organization.id, transaction);
-  await audit({ organizationId: organization.id, actorUserId: user.id, action: 'organization.created', subjectType: 'organization', subjectId: organization.id }, req, transaction);
-  await queueMail(user.email, 'welcome', { name: user.name, organizationName: organization.name, link: `${env.APP_URL}/sign-in` }, transaction);
-  return { user, organization };
-}
-
 export async function inviteUser(
   actor: User,
   input: { email: string; name: string; role: Role },
   req: Request,
   transaction: Transaction,
 ) {
-  if (await User.findOne({ where: { email: input.email }, transaction })) {
-    throw conflict('That e-mail already belongs to a user.', 'email_taken', { email: 'That e-mail already belongs to a user.' });
-  }
+  // Only this company's own people are looked at: whether the address has an account with
+  // another company is never told (the invitation goes out the same; see acceptInvite).
+  const taken = () => conflict('That e-mail already belongs to someone in your company.', 'email_taken', { email: 'That e-mail already belongs to someone in your company.' });
+  if (await User.findOne({ where: { organizationId: actor.organizationId, email: input.email }, transaction })) throw taken();
   const user = await User.create(
     { organizationId: actor.organizationId, name: input.name, email: input.email, passwordHash: null, role: input.role, status: 'invited' },
     { transaction },
-  );
+  ).catch((err: unknown) => {
+    // Two invitations of the same address at once: the index on (organization_id, email) lets one in.
+    throw err instanceof UniqueConstraintError ? taken() : err;
+  });
   await sendInvite(actor, user, req, transaction);
   await audit({ organizationId: actor.organizationId, actorUserId: actor.id, action: 'user.invited', subjectType: 'user', subjectId: user.id, data: { email: user.email, role: user.role } }, req, transaction);
   return user;
@@ -116,6 +98,7 @@ export async function sendInvite(actor: User, user: User, _req: Request, transac
   const organization = await Organization.findByPk(user.organizationId, { transaction });
   const token = await issueToken(user, 'invite', INVITE_DAYS * 86_400_000, transaction);
   await queueMail(
+    user.organizationId,
     user.email,
     'invite',
     {
@@ -133,35 +116,57 @@ export async function sendInvite(actor: User, user: User, _req: Request, transac
 export async function acceptInvite(input: { token: string; name?: string; password: string }, req: Request, transaction: Transaction) {
   const { row, user } = await findLiveToken(input.token, 'invite', transaction);
   if (user.status !== 'invited') throw badRequest('This invitation was withdrawn. Ask the owner for a new one.', undefined, 'invalid_token');
-  user.passwordHash = await hashPassword(input.password);
+  // Told only to whoever holds the link, which went to that mailbox: nothing is revealed.
+  const taken = () =>
+    conflict(
+      'This address already has a Guyline account, with another company. One address signs in to one company: ask the owner to invite another address of yours.',
+      'email_taken',
+    );
+  if (await accountOf(user.email, transaction)) throw taken();
+  user.passwordHash = await hashNewPassword(input.password);
   if (input.name) user.name = input.name;
   user.status = 'active';
-  await user.save({ transaction });
+  try {
+    await user.save({ transaction });
+  } catch (err) {
+    // The same address became an account at this moment (a sign-up confirmed at once).
+    if (err instanceof UniqueConstraintError) throw taken();
+    throw err;
+  }
   row.usedAt = new Date();
   await row.save({ transaction });
   await audit({ organizationId: user.organizationId, actorUserId: user.id, action: 'user.joined', subjectType: 'user', subjectId: user.id }, req, transaction);
   return user;
 }
 
-/** Sends a reset link when the e-mail belongs to an active user; says nothing either way. */
-export async function requestPasswordReset(email: string, req: Request, transaction: Transaction) {
-  const user = await User.findOne({ where: { email }, transaction });
+/**
+ * Sends a reset link when the e-mail belongs to an active account; nothing otherwise. Runs in the
+ * `account-request` job (jobs/accountRequests.ts), so the request's answer and its time are the
+ * same either way.
+ */
+export async function requestPasswordReset(email: string, requestedFrom: string | null, transaction: Transaction) {
+  const user = await accountOf(email, transaction);
   if (!user || user.status !== 'active') return;
   const organization = await Organization.findByPk(user.organizationId, { transaction });
   const token = await issueToken(user, 'password_reset', RESET_MINUTES * 60_000, transaction);
   await queueMail(
+    user.organizationId,
     user.email,
     'password-reset',
     { name: user.name, organizationName: organization!.name, minutes: RESET_MINUTES, link: `${env.APP_URL}/reset-password?token=${token}` },
     transaction,
   );
-  await audit({ organizationId: user.organizationId, actorUserId: null, action: 'user.password_reset_requested', subjectType: 'user', subjectId: user.id }, req, transaction);
+  await audit(
+    { organizationId: user.organizationId, actorUserId: null, action: 'user.password_reset_requested', subjectType: 'user', subjectId: user.id, data: { requestedFrom } },
+    null,
+    transaction,
+  );
 }
 
 export async function confirmPasswordReset(input: { token: string; password: string }, req: Request, transaction: Transaction) {
   const { row, user } = await findLiveToken(input.token, 'password_reset', transaction);
   if (user.status !== 'active') throw badRequest('This account is not active.', undefined, 'invalid_token');
-  user.passwordHash = await hashPassword(input.password);
+  user.passwordHash = await hashNewPassword(input.password);
   await user.save({ transaction });
   row.usedAt = new Date();
   await row.save({ transaction });

@@ -279,6 +279,8 @@ async function bookCardFee(payment: Payment, feeCents: number, t: Transaction) {
           {
             organizationId: payment.organizationId, bookingId: payment.bookingId, customerId: payment.customerId,
             memo: `Card processing fee on card payment ${payment.reference}`, occurredAt: payment.receivedAt,
+            // A fee reported after the payment's period was closed is booked today (periods.ts).
+            whenClosed: 'post_today',
             source: { type: 'payment', id: payment.id }, createdById: null, ...cardFeeCharged(feeCents),
           },
           savepoint,
@@ -336,6 +338,7 @@ export async function confirmRefund(refund: Refund, payment: Payment, stripeRefu
   const customer = (await Customer.findByPk(payment.customerId, { transaction: t }))!;
   if (customer.email) {
     await queueMail(
+      refund.organizationId,
       customer.email,
       'card-refund',
       {

@@ -9,7 +9,8 @@ import { presentBooking } from '../presenters/booking';
 import { activeClauses, occupancyOf, templateNameFor, templateSource } from '../services/documents';
 import { queueJob } from '../services/jobs';
 import { rulesOf } from '../services/rules';
-import { readFile, storeFile } from '../services/storage';
+import { documentLogo } from '../services/images';
+import { storeFile } from '../services/storage';
 import { findPricedBooking, invoiceRecordDocumentIds } from '../services/bookingRecords';
 import { audit } from './audit';
 
@@ -115,7 +116,7 @@ export async function issueDocument(
     template: source,
     clauses: kind === 'rental_agreement' ? await activeClauses(actor.organizationId, transaction) : [],
     values,
-    company: { name: organization.name, logo: organization.logoFileId ? ((await readFile(organization.id, organization.logoFileId))?.data ?? null) : null },
+    company: { name: organization.name, logo: await documentLogo(organization) },
     issuedAt,
   });
   const file = await storeFile(

@@ -3,12 +3,14 @@ import { Op, QueryTypes } from 'sequelize';
 import { addDays, dateInZone } from '../../shared/dates';
 import { allocate, formatMoney, percentOf, subtract, sum } from '../../shared/money';
 import {
-  ADDITIONAL_CHARGE_CATEGORY, ADDITIONAL_CHARGE_LABELS, ADDITIONAL_CHARGE_TAXABLE, INVOICE_KIND_LABELS, type AdditionalChargeLine, type InvoiceLineRow, type ReceiptMethod,
+  ADDITIONAL_CHARGE_CATEGORY, ADDITIONAL_CHARGE_LABELS, ADDITIONAL_CHARGE_TAXABLE, INVOICE_KIND_LABELS, latestIssueDate, receivedDateProblem, type AdditionalChargeLine,
+  type InvoiceLineRow, type ReceiptMethod,
 } from '../../shared/schemas/invoices';
 import { sequelize, type Transaction } from '../db';
 import { badRequest, conflict, HttpError } from '../errors';
 import { ensureChart } from '../ledger/chart';
 import { customerCreditCents, securityDepositHeldCents } from '../ledger/balances';
+import { assertPeriodOpen } from '../ledger/periods';
 import {
   creditNote, creditRefunded, eventTiming, invoiceIssued, paymentReceived, postEntry, refundIssued, reverseEntry, securityDepositApplied, securityDepositHeld,
   securityDepositRefunded, type InvoiceBreakdown,
@@ -16,6 +18,7 @@ import {
 import { Booking, BookingLine, Customer, Invoice, Organization, Payment, PaymentAllocation, Refund, SecurityDepositMove, type User } from '../models';
 import { quoteBooking } from '../services/pricing';
 import { rulesOf } from '../services/rules';
+import { agreementStateOf } from '../services/agreementState';
 import { audit } from './audit';
 import { issueDocument, sendDocument } from './documents';
 import { queueJob } from '../services/jobs';
@@ -151,12 +154,27 @@ async function nextNumber(organizationId: string, year: number, series: string, 
   return Number(row.next_number);
 }
 
+/**
+ * Once the customer has signed, a booking whose agreement changed since (a new version replaced
+ * the signed one) is billed again only after the new version is signed: the signature must cover
+ * what the invoice bills.
+ */
+async function assertSignatureCoversBooking(bookingId: string, t: Transaction) {
+  const a = await agreementStateOf(bookingId, t);
+  if (a.state !== 'changed_since_signed') return;
+  throw conflict(
+    `The booking changed after the customer signed ${a.lastSigned.number}. Send the new version, ${a.current.number}, for signature: the next invoice waits until it is signed.`,
+    'changed_since_signed',
+  );
+}
+
 /** Issues a draft: its number, due date, ledger entry and PDF, all in one transaction. */
 export async function issueInvoice(actor: User, invoiceId: string, req: Request | null, t: Transaction, opts: { at?: Date; email?: boolean } = {}) {
   const invoice = (await Invoice.findOne({ where: { id: invoiceId, organizationId: actor.organizationId }, transaction: t, lock: t.LOCK.UPDATE }))!;
   if (invoice.status !== 'draft') throw conflict('Only a draft is issued.', 'not_draft');
   const organization = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
   const booking = (await loadBooking(actor.organizationId, invoice.bookingId, t))!;
+  await assertSignatureCoversBooking(booking.id, t);
   const rules = rulesOf(organization);
   const now = opts.at ?? new Date();
   const today = dateInZone(now, organization.timeZone);
@@ -313,6 +331,8 @@ const METHOD_WORDS: Record<ReceiptMethod, string> = {
  * the customer already has with us (the held security deposit, their account credit): callers
  * check those sources first. A part larger than an invoice's balance is refused (409), unless the
  * payment is on one invoice and `keepExcessAsCredit` keeps the rest as the customer's credit.
+ * The received day is on or after the invoices' issue date and no later than tomorrow (400
+ * naming `receivedAt`), and not in a closed period (409 `period_closed`).
  */
 export async function recordPayment(
   actor: User,
@@ -345,7 +365,16 @@ export async function recordPayment(
   if (Object.keys(fields).length) throw badRequest('Some invoices cannot take this payment.', fields);
   const bookingIds = new Set(invoices.map((i) => i.bookingId));
   if (bookingIds.size !== 1) throw badRequest('A payment covers invoices of one booking.', { allocations: 'Pick invoices of one booking.' });
-  const { currency } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  const { currency, timeZone } = (await Organization.findByPk(actor.organizationId, { transaction: t }))!;
+  // Money the processor already took is recorded when it reports it, whatever the invoice's dates.
+  if (!input.moneyAlreadyTaken) {
+    const problem = receivedDateProblem(dateInZone(input.receivedAt, timeZone), {
+      issueDate: latestIssueDate(invoices.map((i) => i.issueDate)),
+      today: dateInZone(new Date(), timeZone),
+    });
+    if (problem) throw badRequest(problem, { receivedAt: problem });
+  }
+  await assertPeriodOpen(actor.organizationId, input.receivedAt, t, { field: 'receivedAt' });
   const keepExcess =
     !!input.moneyAlreadyTaken || (!!input.keepExcessAsCredit && input.allocations.length === 1 && input.method !== 'credit' && input.method !== 'security_deposit');
   const over: Record<string, string> = {};

@@ -10,6 +10,7 @@ import { queueMail } from '../services/mailer';
 import { companySigningKey, ensureCompanyCertificate } from '../services/companyCertificate';
 import { deskEmails } from '../services/bookingRecords';
 import { rulesOf } from '../services/rules';
+import { documentLogo, keptImage } from '../services/images';
 import { readFile, storeFile } from '../services/storage';
 import { hashToken, newToken } from '../services/tokens';
 import { audit } from './audit';
@@ -28,6 +29,7 @@ export async function recordEvent(request: SigningRequest, event: SigningEventKi
 async function mailLink(request: SigningRequest, token: string, document: Document, organization: Organization, transaction: Transaction) {
   const values = document.values as { customer?: { name?: string }; booking?: { reference?: string; eventDate?: string } };
   await queueMail(
+    request.organizationId,
     request.sentTo,
     'signing-request',
     {
@@ -147,6 +149,8 @@ export async function signAgreement(
   for (const f of fields.initials) if (!input.initials[f.key]?.trim()) problems[`initials.${f.key}`] = `Initial "${f.heading ?? f.label}".`;
   for (const key of Object.keys(input.initials)) if (!fields.initials.some((f) => f.key === key)) problems[`initials.${key}`] = 'This agreement has no such clause.';
   if (Object.keys(problems).length) throw badRequest('Some initials are missing.', problems);
+  // The drawing: refused by its header when too large, redrawn at the size the signature box prints.
+  const drawn = input.signatureImage ? (await keptImage(Buffer.from(input.signatureImage.split(',')[1], 'base64'), 'signature', 'signatureImage')).data : null;
 
   const now = new Date();
   for (const f of fields.initials) await recordEvent(request, 'initialed', req, transaction, f.key);
@@ -167,10 +171,10 @@ export async function signAgreement(
     signed = await renderSignedPdf({
       markdown: document.markdown,
       title: `${values.document.title} ${values.document.number}`,
-      company: { name: organization.name, logo: organization.logoFileId ? ((await readFile(organization.id, organization.logoFileId))?.data ?? null) : null },
+      company: { name: organization.name, logo: await documentLogo(organization) },
       documentLabel: values.document.label,
       issuedAt: document.issuedAt,
-      signature: { typedName: input.typedName, imagePng: input.signatureImage ? Buffer.from(input.signatureImage.split(',')[1], 'base64') : null, signedAt: now },
+      signature: { typedName: input.typedName, imagePng: drawn, signedAt: now },
       initials: input.initials,
       trail: events.map((e) => ({ at: e.at, event: e.event, ip: e.ip ?? '', userAgent: e.userAgent ?? '', detail: e.detail ?? undefined })),
       issuedSha256: document.sha256,
@@ -218,7 +222,7 @@ export async function reportStockGone(requestId: string, err: ShortfallError, re
   const organization = (await Organization.findByPk(request.organizationId, { transaction }))!;
   const booking = (await Booking.findByPk(request.bookingId, { transaction }))!;
   for (const to of new Set([organization.email, ...(await deskEmails(organization.id, transaction))].filter(Boolean))) {
-    await queueMail(to, 'signing-stock-gone', { reference: booking.reference, message: err.message, companyName: organization.name, link: `${env.APP_URL}/app/bookings/${booking.id}` }, transaction);
+    await queueMail(organization.id, to, 'signing-stock-gone', { reference: booking.reference, message: err.message, companyName: organization.name, link: `${env.APP_URL}/app/bookings/${booking.id}` }, transaction);
   }
 }
 

@@ -208,6 +208,38 @@ class Layout {
   }
 }
 
+/**
+ * A logo larger than this (width × height, from its header) is left out of the header. pdfkit
+ * decodes a PNG with transparency in JavaScript, on the event loop: an 8000 × 8000 one took 18.7 s
+ * and 1 GB. Callers pass services/images.ts documentLogo(), fitted to 920 × 284 px; this keeps any
+ * other caller from freezing the server.
+ */
+export const LOGO_MAX_PIXELS = 4_000_000;
+
+interface OpenedImage {
+  width: number;
+  height: number;
+}
+const openedLogos = new WeakMap<PDFKit.PDFDocument, OpenedImage | null>();
+
+/**
+ * The logo opened once per document: pdfkit reads only the header to open it, and embeds an
+ * opened image once however many pages show it. Null when unreadable (the name stands alone in
+ * the header rather than failing the document) or over LOGO_MAX_PIXELS.
+ */
+function openLogo(doc: PDFKit.PDFDocument, logo: Buffer): OpenedImage | null {
+  if (openedLogos.has(doc)) return openedLogos.get(doc)!;
+  let opened: OpenedImage | null = null;
+  try {
+    const image = (doc as unknown as { openImage(src: Buffer): OpenedImage }).openImage(logo);
+    opened = image.width > 0 && image.height > 0 && image.width * image.height <= LOGO_MAX_PIXELS ? image : null;
+  } catch {
+    opened = null;
+  }
+  openedLogos.set(doc, opened);
+  return opened;
+}
+
 /** The frame body text is laid out in, on every page. */
 export const pageFrame = (doc: PDFKit.PDFDocument): Frame => ({ left: PAGE.side, width: doc.page.width - PAGE.side * 2 });
 
@@ -220,9 +252,11 @@ export function drawPageChrome(doc: PDFKit.PDFDocument, input: Pick<PdfInput, 'c
   doc.page.margins = { top: 0, bottom: 0, left: 0, right: 0 };
 
   let nameX = left;
-  if (input.company.logo) {
+  const logo = input.company.logo ? openLogo(doc, input.company.logo) : null;
+  if (logo) {
     try {
-      doc.image(input.company.logo, left, 28, { fit: [110, 34], valign: 'center' });
+      // pdfkit's image() also takes an image it has opened (its types name only sources).
+      doc.image(logo as unknown as Buffer, left, 28, { fit: [110, 34], valign: 'center' });
       nameX = left + 120;
     } catch {
       // An unreadable logo leaves the name alone in the header rather than failing the document.

@@ -53,10 +53,19 @@ const rawOf = (options: Handlebars.HelperOptions): RenderData => {
  * Backslash-escapes what Markdown would read as formatting. CommonMark lets any ASCII
  * punctuation be escaped; only the characters that start emphasis, links, code, HTML or tables
  * anywhere, and those that start a heading, list or quote at the start of a line, need it.
+ *
+ * A value is never a link either: GFM's extended autolinks (GitHub Flavored Markdown spec
+ * 0.29-gfm, §6.9 "Autolinks (extension)", from memory) make one of "https://...", "www...." and
+ * "name@host" in plain text. An escape inside each trigger ("https\://", "www\.", "name\@host")
+ * stops that and prints the same characters. Links stay what the company writes in its own
+ * template text.
  */
 export function escapeMarkdown(text: string): string {
   return text
     .replace(/[\\`*_[\]<>|~&]/g, (c) => `\\${c}`)
+    .replace(/:(?=\/\/)/g, '\\:')
+    .replace(/(www)\./gi, '$1\\.')
+    .replace(/@/g, '\\@')
     .replace(/^(\s*)([#>+=-])/gm, '$1\\$2')
     .replace(/^(\s*\d+)([.)])/gm, '$1\\$2');
 }

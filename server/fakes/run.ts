@@ -8,6 +8,7 @@ const LOCAL_WEBHOOK_SECRET = 'whsec_guyline_local_card_fake';
 const sink = await startMailSink({
   smtpPort: Number(process.env.MAIL_SINK_SMTP_PORT ?? 2525),
   httpPort: Number(process.env.MAIL_SINK_HTTP_PORT ?? 2526),
+  token: process.env.MAIL_SINK_TOKEN || undefined,
 });
 console.log(`[fakes] mail sink: SMTP ${sink.smtpUrl}, messages at ${sink.httpUrl}/messages`);
 

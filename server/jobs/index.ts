@@ -1,4 +1,5 @@
 import { getBoss } from '../services/jobs';
+import { registerAccountRequests } from './accountRequests';
 import { registerCardPayments } from './cardPayments';
 import { registerRecognizeDeposits } from './recognizeDeposits';
 import { registerReminders } from './reminders';
@@ -13,5 +14,6 @@ export async function startWorkers() {
   await registerRecognizeDeposits(boss);
   await registerReminders(boss);
   await registerCardPayments(boss);
+  await registerAccountRequests(boss);
   return boss;
 }

@@ -25,7 +25,7 @@ async function remind(org: Organization, kind: string, subjectId: string, bookin
   if (!to) return false;
   return withTransaction(async (t) => {
     if (!(await claim(kind, subjectId, org, booking.id, to, t))) return false;
-    await queueMail(to, template, { customerName: booking.customer.name, companyName: org.name, companyPhone: org.phone || 'us', reference: booking.reference, ...values }, t);
+    await queueMail(org.id, to, template, { customerName: booking.customer.name, companyName: org.name, companyPhone: org.phone || 'us', reference: booking.reference, ...values }, t);
     // The booking's history shows what went out.
     await audit({ organizationId: org.id, actorUserId: null, action: `reminder.${kind}`, subjectType: 'booking', subjectId: booking.id, data: { to, subjectId } }, null, t);
     return true;

@@ -33,7 +33,7 @@ async function linkFor(document: Document): Promise<string> {
   if (document.kind === 'invoice') {
     const invoice = await Invoice.findOne({ where: { documentId: document.id } });
     const open = invoice && ['open', 'partly_paid'].includes(invoice.status) && invoice.totalCents - invoice.paidCents - invoice.creditedCents > 0;
-    return open && cardPaymentsEnabled() ? payLinkUrl(invoice.id) : '';
+    return open && cardPaymentsEnabled() ? payLinkUrl(invoice.id, invoice.payLinkGeneration) : '';
   }
   if (document.kind === 'receipt' || document.kind === 'credit_note') return `${env.APP_URL}/portal/sign-in?next=${encodeURIComponent(`/portal/bookings/${document.bookingId}`)}`;
   return '';
@@ -59,6 +59,7 @@ async function sendOne([job]: PgBoss.JobWithMetadata<{ sendId: string }>[]) {
         : renderDocumentEmail((await templateSource(send.organizationId, templateNameFor(document.kind, true))).source, values, { link: await linkFor(document) });
     // Once per send, even when a crash makes pg-boss run this job again (see deliverOnce).
     await deliverOnce(`send-document:${send.id}`, {
+      organizationId: send.organizationId,
       to: send.to,
       ...mail,
       fromName: organization.name,

@@ -81,6 +81,9 @@ export async function recognizeDepositsDue(organizationId: string, today: string
           memo: `Deposits earned: booking ${booking.reference}, event on ${eventDate}`,
           // Dated the event day; never before a deposit it empties (an invoice wrongly dated in advance afterwards).
           occurredAt: latest && latest > eventDay ? latest : eventDay,
+          // The job may run after the event's period was closed (it was down, or the deposit was
+          // paid late): the revenue is then recognised today, in the open period, not refused forever.
+          whenClosed: 'post_today',
           source: { type: 'booking', id: bookingId },
           lines: draft.lines,
         },

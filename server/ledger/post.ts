@@ -2,13 +2,15 @@
  * Writing the ledger: `postEntry` turns an entry draft (rules.ts) into one journal entry and its
  * lines in the caller's transaction; `reverseEntry` corrects a mistake with the mirror entry.
  * The database checks balance again at commit and refuses any UPDATE or DELETE; the checks here
- * come first so a bug reads as a sentence rather than a trigger error.
+ * come first so a bug reads as a sentence rather than a trigger error. No entry is dated on or
+ * before the company's lock date (`assertPeriodOpen`, periods.ts; a trigger checks it again).
  */
 import { Op } from 'sequelize';
 import { sum } from '../../shared/money';
 import type { Transaction } from '../db';
 import { Account, Booking, Customer, JournalEntry, JournalLine, User } from '../models';
 import { ensureChart, type SystemKey } from './chart';
+import { assertPeriodOpen, openPeriodDate, periodClosedFromDatabase } from './periods';
 import type { EntryKind, LineDraft } from './rules';
 
 export * from './rules';
@@ -31,7 +33,14 @@ export interface PostEntryInput {
   customerId?: string | null;
   kind: EntryKind;
   memo: string;
+  /** The entry's date (on the company's calendar): never on or before the lock date (periods.ts). */
   occurredAt: Date;
+  /**
+   * When `occurredAt` falls in a closed period: `refuse` (409 period_closed; the default, for dates
+   * a person chose), or `post_today` for entries the company did not date itself (card processor
+   * events, the deposit job), which then go into the open period as of now.
+   */
+  whenClosed?: 'refuse' | 'post_today';
   /** What caused it: `{ type: 'invoice', id }`, `{ type: 'payment', id }` ... */
   source?: { type: string; id: string } | null;
   createdById?: string | null;
@@ -97,6 +106,10 @@ async function resolveCustomer(input: PostEntryInput, t: Transaction): Promise<s
 async function writeEntry(input: PostEntryInput & { reversesId?: string | null }, t: Transaction): Promise<JournalEntry> {
   if (!t) throw new LedgerError('bad_reference', 'Journal entries are written inside the transaction of the event they record.');
   assertBalanced(input.lines);
+  const occurredAt =
+    input.whenClosed === 'post_today'
+      ? await openPeriodDate(input.organizationId, input.occurredAt, t)
+      : (await assertPeriodOpen(input.organizationId, input.occurredAt, t), input.occurredAt);
   const customerId = await resolveCustomer(input, t);
   const ids = await accountIds(input.organizationId, [...new Set(input.lines.map((l) => l.account))], t);
   const entry = await JournalEntry.create(
@@ -104,7 +117,7 @@ async function writeEntry(input: PostEntryInput & { reversesId?: string | null }
       organizationId: input.organizationId,
       bookingId: input.bookingId ?? null,
       customerId,
-      occurredAt: input.occurredAt,
+      occurredAt,
       kind: input.kind,
       memo: input.memo.slice(0, MEMO_MAX),
       sourceType: input.source?.type ?? null,
@@ -113,7 +126,7 @@ async function writeEntry(input: PostEntryInput & { reversesId?: string | null }
       createdById: input.createdById ?? null,
     },
     { transaction: t },
-  );
+  ).catch(asPeriodClosed);
   const lines = await JournalLine.bulkCreate(
     input.lines.map((l, position) => ({
       organizationId: input.organizationId,
@@ -128,6 +141,11 @@ async function writeEntry(input: PostEntryInput & { reversesId?: string | null }
   );
   entry.lines = lines;
   return entry;
+}
+
+/** The database's own refusal of an entry in a closed period (its trigger) reads as the same 409. */
+function asPeriodClosed(err: unknown): never {
+  throw periodClosedFromDatabase(err) ?? err;
 }
 
 /**
@@ -161,12 +179,16 @@ export async function reverseEntry(entryId: string, reason: string, actorId: str
 
 /** The mirror lines go to the same accounts by id (a renamed or re-keyed account is still the one posted to). */
 async function writeMirror(entry: JournalEntry, lines: JournalLine[], reason: string, actorId: string | null, t: Transaction) {
+  // Dated now, in the open period, even when the original is in a closed one: that is where a
+  // correction of a closed period goes.
+  const now = new Date();
+  await assertPeriodOpen(entry.organizationId, now, t);
   const reversal = await JournalEntry.create(
     {
       organizationId: entry.organizationId,
       bookingId: entry.bookingId,
       customerId: entry.customerId,
-      occurredAt: new Date(),
+      occurredAt: now,
       kind: 'reversal',
       memo: `Reverses ${entry.kind.replace(/_/g, ' ')}: ${reason}`.slice(0, MEMO_MAX),
       sourceType: entry.sourceType,
@@ -175,7 +197,7 @@ async function writeMirror(entry: JournalEntry, lines: JournalLine[], reason: st
       createdById: actorId,
     },
     { transaction: t },
-  );
+  ).catch(asPeriodClosed);
   reversal.lines = await JournalLine.bulkCreate(
     lines.map((l) => ({
       organizationId: entry.organizationId,

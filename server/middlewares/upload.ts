@@ -7,7 +7,9 @@ import { HttpError } from '../errors';
  * not multipart or no file -> 415/400, all in the API's error shape.
  */
 export function singleFile(maxBytes: number) {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single('file');
+  // Browsers send the file's name as UTF-8 bytes (HTML, "multipart/form-data encoding algorithm");
+  // busboy's default reads them as Latin-1, which turned "č" into "Ä" and a C1 control.
+  const upload = multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single('file');
   return (req: Request, res: Response, next: NextFunction) => {
     if (!req.is('multipart/form-data')) {
       return next(new HttpError(415, 'unsupported_media_type', 'Send the file as multipart/form-data in a field named "file".'));

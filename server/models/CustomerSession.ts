@@ -4,6 +4,8 @@ import { sequelize } from '../db';
 /** A one-time sign-in link for a customer's own pages; only the token's hash is stored. */
 export class CustomerSignInToken extends Model<InferAttributes<CustomerSignInToken>, InferCreationAttributes<CustomerSignInToken>> {
   declare id: CreationOptional<string>;
+  /** The company whose pages the link opens: a customer of two companies signs in to each. */
+  declare organizationId: string;
   declare email: string;
   declare tokenHash: string;
   declare next: CreationOptional<string | null>;
@@ -15,6 +17,7 @@ export class CustomerSignInToken extends Model<InferAttributes<CustomerSignInTok
 CustomerSignInToken.init(
   {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    organizationId: { type: DataTypes.UUID, allowNull: false },
     email: { type: DataTypes.STRING(254), allowNull: false },
     tokenHash: { type: DataTypes.STRING(64), allowNull: false },
     next: { type: DataTypes.STRING(200), allowNull: true },
@@ -25,9 +28,10 @@ CustomerSignInToken.init(
   { sequelize, tableName: 'customer_sign_in_tokens', modelName: 'CustomerSignInToken', updatedAt: false },
 );
 
-/** A customer's signed-in session: who they are is their e-mail address. */
+/** A customer's signed-in session: their e-mail address, with one company. */
 export class CustomerSession extends Model<InferAttributes<CustomerSession>, InferCreationAttributes<CustomerSession>> {
   declare id: CreationOptional<string>;
+  declare organizationId: string;
   declare email: string;
   declare expiresAt: Date;
   declare revokedAt: CreationOptional<Date | null>;
@@ -39,6 +43,7 @@ export class CustomerSession extends Model<InferAttributes<CustomerSession>, Inf
 CustomerSession.init(
   {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    organizationId: { type: DataTypes.UUID, allowNull: false },
     email: { type: DataTypes.STRING(254), allowNull: false },
     expiresAt: { type: DataTypes.DATE, allowNull: false },
     revokedAt: { type: DataTypes.DATE, allowNull: true },

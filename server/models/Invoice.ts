@@ -32,6 +32,8 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare documentId: CreationOptional<string | null>;
   declare ledgerEntryId: CreationOptional<string | null>;
   declare voidReason: CreationOptional<string | null>;
+  /** Raised when the office withdraws the invoice's pay links: a link of an older generation no longer opens. */
+  declare payLinkGeneration: CreationOptional<number>;
   declare createdById: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -66,6 +68,7 @@ Invoice.init(
     documentId: { type: DataTypes.UUID, allowNull: true },
     ledgerEntryId: { type: DataTypes.UUID, allowNull: true },
     voidReason: { type: DataTypes.STRING(500), allowNull: true },
+    payLinkGeneration: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     createdById: { type: DataTypes.UUID, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

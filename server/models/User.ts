@@ -20,7 +20,8 @@ User.init(
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
     organizationId: { type: DataTypes.UUID, allowNull: false },
     name: { type: DataTypes.STRING(120), allowNull: false },
-    email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+    // Unique among accounts (users with a password) and within a company; see migration 20261205-0010.
+    email: { type: DataTypes.STRING(254), allowNull: false },
     passwordHash: { type: DataTypes.STRING(100), allowNull: true },
     role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
     status: { type: DataTypes.ENUM(...USER_STATUSES), allowNull: false, defaultValue: 'active' },

@@ -23,6 +23,7 @@ import { Payment, PaymentAllocation } from './Payment';
 import { Refund, SecurityDepositMove } from './Refund';
 import { ReturnCheck, ReturnCheckLine } from './ReturnCheck';
 import { Session } from './Session';
+import { SignupRequest } from './SignupRequest';
 import { Shortfall } from './Shortfall';
 import { SiteCheck } from './SiteCheck';
 import { SigningEvent } from './SigningEvent';
@@ -55,5 +56,5 @@ export {
   Invoice, Payment, PaymentAllocation, Refund, SecurityDepositMove,
   CardCheckout, StripeEvent, CustomerSession, CustomerSignInToken,
   Account, AuditLog, AuthToken, Booking, BookingLine, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, Item, JournalEntry, JournalLine,
-  Organization, Session, Shortfall, SigningEvent, SigningRequest, StoredFile, User,
+  Organization, Session, Shortfall, SigningEvent, SigningRequest, SignupRequest, StoredFile, User,
 };

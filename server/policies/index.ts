@@ -9,11 +9,12 @@ import { exportPolicy } from './export';
 import { fieldPolicy } from './field';
 import { invoicePolicy } from './invoice';
 import { itemPolicy } from './item';
+import { ledgerPolicy } from './ledger';
 import { organizationPolicy } from './organization';
 import { reportPolicy } from './report';
 import { userPolicy } from './user';
 
-const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy, export: exportPolicy, report: reportPolicy };
+const policies = { user: userPolicy, organization: organizationPolicy, item: itemPolicy, customer: customerPolicy, booking: bookingPolicy, document: documentPolicy, invoice: invoicePolicy, field: fieldPolicy, export: exportPolicy, report: reportPolicy, ledger: ledgerPolicy };
 type Policies = typeof policies;
 
 /** `can(actor, 'user', 'disable', target)`: the single place the server decides who may do what. */
@@ -52,6 +53,6 @@ export function areasFor(user: User): Area[] {
   if (fieldPolicy.read(user)) areas.push('field');
   if (userPolicy.list(user)) areas.push('users');
   if (user.role === 'owner') areas.push('settings');
-  if (env.FAKES === 'on') areas.push('devInbox');
+  if (env.FAKES === 'on' && organizationPolicy.readCaughtMail(user)) areas.push('devInbox');
   return areas;
 }

@@ -1,4 +1,5 @@
-import type { ClauseRow, DocumentRow, DocumentSendRow, TemplateName, TemplateRow } from '../../shared/schemas/documents';
+import type { AgreementState } from '../services/agreementState';
+import type { AgreementStatus, ClauseRow, DocumentRow, DocumentSendRow, TemplateName, TemplateRow } from '../../shared/schemas/documents';
 import type { CompanyClause, Document, DocumentSend, DocumentTemplate, User } from '../models';
 import { can } from '../policies';
 
@@ -31,4 +32,18 @@ export function presentTemplate(name: TemplateName, source: string, own: Documen
 
 export function presentClause(c: CompanyClause): ClauseRow {
   return { id: c.id, key: c.key, title: c.title, body: c.body, requiresInitials: c.requiresInitials, position: c.position, active: c.active, updatedAt: c.updatedAt.toISOString() };
+}
+
+/** The agreement's state for the office: numbers only, the documents themselves are in the list. */
+export function presentAgreementStatus(a: AgreementState): AgreementStatus {
+  switch (a.state) {
+    case 'none':
+      return { state: 'none' };
+    case 'awaiting':
+      return { state: 'awaiting', currentNumber: a.current.number };
+    case 'signed':
+      return { state: 'signed', currentNumber: a.current.number, signedNumber: a.signed.number };
+    case 'changed_since_signed':
+      return { state: 'changed_since_signed', currentNumber: a.current.number, lastSignedNumber: a.lastSigned.number };
+  }
 }

@@ -1,7 +1,7 @@
 import type { InvoiceRow, PaymentRow } from '../../shared/schemas/invoices';
 import type { Booking, Customer, Invoice, Payment, PaymentAllocation, User } from '../models';
 import { can } from '../policies';
-import { payLinkUrl } from '../services/payLinks';
+import { payLinkEndsAt, payLinkUrl } from '../services/payLinks';
 import { cardPaymentsEnabled } from '../services/stripe';
 
 export function presentInvoice(
@@ -10,6 +10,7 @@ export function presentInvoice(
   extra: { booking: Pick<Booking, 'reference'>; customer: Pick<Customer, 'id' | 'name' | 'email'>; currency: string; today: string; creditsInvoiceNumber?: string | null },
 ): InvoiceRow {
   const balance = invoice.status === 'void' || invoice.kind === 'credit_note' ? 0 : invoice.totalCents - invoice.paidCents - invoice.creditedCents;
+  const payable = balance > 0 && ['open', 'partly_paid'].includes(invoice.status) && cardPaymentsEnabled();
   return {
     id: invoice.id,
     bookingId: invoice.bookingId,
@@ -34,7 +35,8 @@ export function presentInvoice(
     voidReason: invoice.voidReason ?? null,
     creditsInvoice: invoice.creditsInvoiceId ? { id: invoice.creditsInvoiceId, number: extra.creditsInvoiceNumber ?? null } : null,
     reason: invoice.reason ?? null,
-    payUrl: balance > 0 && ['open', 'partly_paid'].includes(invoice.status) && cardPaymentsEnabled() ? payLinkUrl(invoice.id) : null,
+    payUrl: payable ? payLinkUrl(invoice.id, invoice.payLinkGeneration) : null,
+    payLinkEndsAt: payable ? payLinkEndsAt().toISOString() : null,
     createdAt: invoice.createdAt.toISOString(),
     can: {
       issue: can(actor, 'invoice', 'issue', invoice),
@@ -43,6 +45,7 @@ export function presentInvoice(
       creditNote: can(actor, 'invoice', 'creditNote', invoice),
       // Paying from account credit is a payment like any other; the credit itself is checked when used.
       applyCredit: can(actor, 'invoice', 'recordPayment', invoice),
+      revokePayLink: can(actor, 'invoice', 'revokePayLink', invoice),
     },
   };
 }

@@ -9,6 +9,7 @@ import { exportsRouter } from './exports';
 import { fieldRouter } from './field';
 import { health } from './health';
 import { invoicesRouter } from './invoices';
+import { ledgerRouter } from './ledger';
 import { signingRouter } from './signing';
 import { itemsRouter } from './items';
 import { planningRouter } from './planning';
@@ -37,6 +38,7 @@ export function apiRouter() {
   api.use('/field', fieldRouter);
   api.use('/exports', exportsRouter);
   api.use('/reports', reportsRouter);
+  api.use('/ledger', ledgerRouter);
   api.use('/dashboard', dashboardRouter);
   if (env.FAKES === 'on') api.use('/dev', devRouter);
   return api;

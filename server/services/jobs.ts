@@ -4,7 +4,7 @@ import { env } from '../env';
 import { logger } from '../logger';
 
 /** Every background queue the app uses; created when the schema is set up. */
-export const QUEUES = ['send-mail', 'send-document', 'recognize-deposits', 'send-reminders', 'card-event', 'card-refund'] as const;
+export const QUEUES = ['send-mail', 'send-document', 'recognize-deposits', 'send-reminders', 'card-event', 'card-refund', 'account-request', 'company-certificate'] as const;
 export type QueueName = (typeof QUEUES)[number];
 
 let boss: PgBoss | null = null;

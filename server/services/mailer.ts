@@ -9,9 +9,14 @@ import { sequelize, type Transaction } from '../db';
 import { env } from '../env';
 import { queueJob } from './jobs';
 
+/** The header the local mail sink files a message under (server/fakes/mailSink.ts reads it). */
+export const ORGANIZATION_HEADER = 'X-Guyline-Organization';
+
 const templatesDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', 'templates', 'emails');
 
 export interface OutgoingMail {
+  /** The company the mail is sent for: the demo's caught-mail screen shows each company its own. */
+  organizationId: string;
   to: string;
   subject: string;
   text: string;
@@ -40,7 +45,7 @@ function textToHtml(text: string) {
  * Renders templates/emails/<name>.hbs: the first line is `Subject: ...`, the rest the body.
  * Both are Handlebars over the given values.
  */
-export function renderMail(name: string, values: Record<string, unknown>): Omit<OutgoingMail, 'to'> {
+export function renderMail(name: string, values: Record<string, unknown>): Omit<OutgoingMail, 'to' | 'organizationId'> {
   let template = compiled.get(name);
   if (!template) {
     const source = fs.readFileSync(path.join(templatesDir, `${name}.hbs`), 'utf8');
@@ -54,9 +59,12 @@ export function renderMail(name: string, values: Record<string, unknown>): Omit<
   return { subject: first.slice('Subject:'.length).trim(), text, html: textToHtml(text) };
 }
 
-/** Queues a templated e-mail to be sent by the mail job after the transaction commits; returns the job's id. */
-export async function queueMail(to: string, template: string, values: Record<string, unknown>, transaction?: Transaction) {
-  const mail: OutgoingMail = { to, ...renderMail(template, values) };
+/**
+ * Queues a templated e-mail, sent for `organizationId`, to go out by the mail job after the
+ * transaction commits; returns the job's id.
+ */
+export async function queueMail(organizationId: string, to: string, template: string, values: Record<string, unknown>, transaction?: Transaction) {
+  const mail: OutgoingMail = { organizationId, to, ...renderMail(template, values) };
   return queueJob('send-mail', mail, transaction);
 }
 
@@ -92,6 +100,8 @@ export async function deliverMail(mail: MailToDeliver & { messageId?: string }) 
     html: mail.html,
     messageId: mail.messageId,
     attachments: mail.attachments?.map((a) => ({ filename: a.filename, content: a.content, contentType: a.contentType })),
+    // Only for the local sink, which files each message under its company; real mail never carries it.
+    headers: env.FAKES === 'on' && mail.organizationId ? { [ORGANIZATION_HEADER]: mail.organizationId } : undefined,
   });
 }
 

@@ -1,11 +1,12 @@
 import { createSecretKey, type KeyObject } from 'node:crypto';
 import type { Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
+import { renewCsrfToken } from '../middlewares/csrf';
 import { Op } from 'sequelize';
 import { SESSION_COOKIE } from '../../shared/types';
 import type { Transaction } from '../db';
 import { env, secureCookies } from '../env';
-import { Session, type User } from '../models';
+import { CalendarFeed, Session, type User } from '../models';
 
 export interface SessionClaims {
   sid: string;
@@ -51,6 +52,8 @@ export async function startSession(req: Request, res: Response, user: User, tran
     path: '/',
     expires: expiresAt,
   });
+  // The CSRF token is bound to the session: the new session's first write needs a new one.
+  renewCsrfToken(req, res, { staff: token });
   return session;
 }
 
@@ -70,10 +73,15 @@ export function clearSessionCookie(res: Response) {
   res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure: secureCookies, path: '/' });
 }
 
-/** Signs out every browser of the user (sign out everywhere, disabled user, new password). */
+/**
+ * Signs out every browser of the user (sign out everywhere, disabled user, new password). The
+ * person's calendar feed address goes too: it is a key to their stops like a session is, and
+ * whoever is locking a lost phone or a leaked password out means that address as well.
+ */
 export async function revokeAllSessions(userId: string, transaction?: Transaction) {
   await Session.update(
     { revokedAt: new Date() },
     { where: { userId, revokedAt: { [Op.is]: null } }, transaction },
   );
+  await CalendarFeed.update({ revokedAt: new Date() }, { where: { userId, revokedAt: { [Op.is]: null } }, transaction });
 }

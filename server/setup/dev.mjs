@@ -18,7 +18,9 @@ const env = {
   APP_URL: `http://localhost:${vitePort}`,
   SMTP_URL: 'smtp://127.0.0.1:2525',
   MAIL_SINK_URL: 'http://127.0.0.1:2526',
+  MAIL_SINK_TOKEN: process.env.MAIL_SINK_TOKEN ?? localSecret('mail-sink'),
   FAKES: 'on',
+  GUYLINE_DEMO: 'on',
 };
 runTs('server/cli.ts', ['setup'], env);
 const bin = (n) => path.join(root, 'node_modules', '.bin', n);

@@ -28,7 +28,11 @@ const env = {
   MAIL_SINK_URL: process.env.MAIL_SINK_URL ?? `http://127.0.0.1:${sinkHttpPort}`,
   MAIL_SINK_SMTP_PORT: String(smtpPort),
   MAIL_SINK_HTTP_PORT: String(sinkHttpPort),
+  // The sink's own API holds every caught link: only the app (which has this token) reads it.
+  MAIL_SINK_TOKEN: process.env.MAIL_SINK_TOKEN ?? localSecret('mail-sink'),
   FAKES: process.env.FAKES ?? 'on',
+  // This is the demo: the production server refuses to run with the fakes on without this.
+  GUYLINE_DEMO: process.env.GUYLINE_DEMO ?? 'on',
   // Card payments go to the local fake on loopback unless real settings are given.
   CARD_FAKE_PORT: String(cardPort),
   STRIPE_SECRET_KEY: process.env.STRIPE_SECRET_KEY ?? 'sk_test_guyline_local',
@@ -87,7 +91,7 @@ setTimeout(() => {
   if (stopping) return;
   say('');
   say(`Guyline runs on ${env.APP_URL}`);
-  say(`Caught mail: ${env.APP_URL}/app/dev/mail (the local mail sink)`);
+  say(`Caught mail: ${env.APP_URL}/app/dev/mail (the local mail sink; each company's owner sees that company's mail)`);
   say('Demo sign-ins, password guyline-demo for each:');
   say('  owner@demo.test   office@demo.test   crew@demo.test   books@demo.test');
   say('Press Ctrl-C to stop everything (PostgreSQL too).');

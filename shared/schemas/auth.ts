@@ -8,10 +8,19 @@ export const Email = z
   .max(254, 'That e-mail address is too long.')
   .pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.com.' }));
 
+/** bcrypt reads only the first 72 bytes of a password (bcryptjs 3 README, "Security considerations": "The maximum input length is 72 bytes"). */
+export const PASSWORD_MAX_BYTES = 72;
+
+const utf8Length = (s: string) => new TextEncoder().encode(s).length;
+
+/** A password someone chooses. The server also refuses the demo password and very common ones. */
 export const Password = z
   .string({ error: 'Enter a password.' })
   .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-  .max(200, 'Use at most 200 characters.');
+  .refine(
+    (s) => utf8Length(s) <= PASSWORD_MAX_BYTES,
+    `Use at most ${PASSWORD_MAX_BYTES} bytes: ${PASSWORD_MAX_BYTES} plain letters, fewer with accents or emoji. The rest would be ignored.`,
+  );
 
 export const PersonName = z
   .string({ error: 'Enter a name.' })
@@ -37,10 +46,18 @@ export const LoginRequest = z.object({
 });
 export type LoginRequest = z.infer<typeof LoginRequest>;
 
+/** The answer to a sign-up: the same for every address (an address with an account gets a note by e-mail instead). */
+export const SignupAccepted = z.object({ message: z.string() });
+export type SignupAccepted = z.infer<typeof SignupAccepted>;
+
 export const PasswordResetRequest = z.object({ email: Email });
 export type PasswordResetRequest = z.infer<typeof PasswordResetRequest>;
 
 export const Token = z.string({ error: 'The link is incomplete.' }).trim().min(20, 'The link is incomplete.').max(200);
+
+/** The e-mailed link that finishes a sign-up: the company is made, and its owner signed in. */
+export const SignupConfirm = z.object({ token: Token });
+export type SignupConfirm = z.infer<typeof SignupConfirm>;
 
 export const PasswordResetConfirm = z.object({ token: Token, password: Password });
 export type PasswordResetConfirm = z.infer<typeof PasswordResetConfirm>;

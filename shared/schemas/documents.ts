@@ -31,6 +31,20 @@ export interface DocumentSendRow {
   createdAt: string;
 }
 
+/** Where the booking's rental agreement stands (GET /api/bookings/:id/documents answers it beside the list). */
+export type AgreementStatus =
+  | { state: 'none' }
+  | { state: 'awaiting'; currentNumber: string }
+  | { state: 'signed'; currentNumber: string; signedNumber: string }
+  /** The customer signed an earlier version; the booking changed since: the next invoice waits for a new signature. */
+  | { state: 'changed_since_signed'; currentNumber: string; lastSignedNumber: string };
+
+export interface BookingDocumentList {
+  data: DocumentRow[];
+  total: number;
+  agreement: AgreementStatus;
+}
+
 export interface DocumentRow {
   id: string;
   kind: StoredDocumentKind;

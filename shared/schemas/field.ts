@@ -67,7 +67,9 @@ export const PHOTO_STAGE_LABELS: Record<PhotoStage, string> = {
 };
 /** Photos: the content decides the type; a phone camera picture fits well under 10 MB. */
 export const PHOTO_MAX_BYTES = 10 * 1024 * 1024;
-export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/avif'] as const;
+// What the server can decode to check and fit a photo (sharp's prebuilt libvips reads no HEIC; phones
+// hand a browser a JPEG copy of one).
+export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/avif'] as const;
 
 /** What a photo shows, in the upload's query string (so every value arrives as text). */
 export const PhotoFields = z.object({

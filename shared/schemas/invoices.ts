@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { addDays, dateInZone } from '../dates';
 import { PAYMENT_METHODS } from './documents';
 
 export const INVOICE_KINDS = ['deposit', 'balance', 'additional', 'credit_note'] as const;
@@ -61,8 +62,11 @@ export interface InvoiceRow {
   reason: string | null;
   /** The customer's pay link (card payment, no sign-in) while something is due and card payments are set up. */
   payUrl: string | null;
+  /** When `payUrl` stops working (a new one is made each day; each e-mail of the invoice carries its own). */
+  payLinkEndsAt: string | null;
   createdAt: string;
-  can: { issue: boolean; void: boolean; recordPayment: boolean; creditNote: boolean; applyCredit: boolean };
+  /** revokePayLink: withdraw every pay link of the invoice made so far. */
+  can: { issue: boolean; void: boolean; recordPayment: boolean; creditNote: boolean; applyCredit: boolean; revokePayLink: boolean };
 }
 
 /** What an additional-charges invoice may bill after the event. */
@@ -185,6 +189,38 @@ export const RecordPaymentRequest = z
   });
 export type RecordPaymentRequest = z.input<typeof RecordPaymentRequest>;
 
+/** The latest of the invoices' issue dates (YYYY-MM-DD sorts as text); null when none is issued. */
+export const latestIssueDate = (dates: readonly (string | null | undefined)[]): string | null =>
+  dates.reduce<string | null>((latest, d) => (d && (!latest || d > latest) ? d : latest), null);
+
+/**
+ * What is wrong with a payment received on `receivedDay`, or null. Money is received on or after
+ * the day the invoice was issued (with a split, the latest of them) and no later than tomorrow,
+ * for a check handed over dated the next day; both days on the company's calendar.
+ */
+export function receivedDateProblem(receivedDay: string, bounds: { issueDate: string | null; today: string }): string | null {
+  if (bounds.issueDate && receivedDay < bounds.issueDate) {
+    return `The invoice was issued on ${bounds.issueDate}: enter a day on or after it.`;
+  }
+  const tomorrow = addDays(bounds.today, 1);
+  if (receivedDay > tomorrow) return `Enter a day no later than tomorrow (${tomorrow}): the day the money came in.`;
+  return null;
+}
+
+/**
+ * RecordPaymentRequest with the received date's bounds, for a form that knows the invoices and the
+ * company's calendar; the server checks the same bounds with `receivedDateProblem` on the locked
+ * invoices.
+ */
+export const recordPaymentRequestFor = (context: { issueDateOf: (invoiceId: string) => string | null | undefined; today: string; timeZone: string }) =>
+  RecordPaymentRequest.superRefine((v, ctx) => {
+    const at = v.receivedAt ? Date.parse(v.receivedAt) : Number.NaN;
+    if (Number.isNaN(at)) return;
+    const ids = v.allocations?.length ? v.allocations.map((a) => a.invoiceId) : v.invoiceId ? [v.invoiceId] : [];
+    const problem = receivedDateProblem(dateInZone(at, context.timeZone), { issueDate: latestIssueDate(ids.map(context.issueDateOf)), today: context.today });
+    if (problem) ctx.addIssue({ code: 'custom', path: ['receivedAt'], message: problem });
+  });
+
 /**
  * How a payment came: money (cash, check, transfer, card), or moved from what the customer already
  * had with us: the security deposit held, or their account credit.
@@ -267,7 +303,15 @@ export interface AccountRow {
 
 /** PUT /api/ledger/accounts/:id (owner): the company's own code and name for an account. */
 export const AccountInput = z.object({
-  code: z.string().trim().min(1, 'Give the account a code.').max(10, 'At most 10 characters.').regex(/^[0-9A-Za-z.-]+$/, 'Use digits, letters, dots and hyphens.'),
+  code: z
+    .string()
+    .trim()
+    .min(1, 'Give the account a code.')
+    .max(10, 'At most 10 characters.')
+    // Spreadsheets run a cell starting with these as a formula (OWASP, "CSV Injection"); the
+    // exports defuse such cells anyway, but a code is a number to look up, never a formula.
+    .regex(/^[^-+=@]/, 'Start the code with a digit or a letter: a code cannot start with -, +, = or @.')
+    .regex(/^[0-9A-Za-z.-]+$/, 'Use digits, letters, dots and hyphens.'),
   name: z.string().trim().min(2, 'Give the account a name.').max(120),
 });
 export type AccountInput = z.input<typeof AccountInput>;

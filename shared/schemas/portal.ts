@@ -41,6 +41,8 @@ export interface PortalMe {
   name: string;
   /** Where the sign-in link was meant to land, once, right after sign-in. */
   next: string | null;
+  /** The one company whose pages these are: a customer of two companies signs in to each. */
+  company: PortalCompany;
 }
 
 export interface PortalInvoice {
@@ -83,14 +85,22 @@ export interface PortalBooking extends PortalBookingSummary {
   lines: { description: string; quantity: number }[];
   agreement:
     | { state: 'none' }
-    /** Sent for signature: signUrl opens the signing page. */
-    | { state: 'awaiting'; signUrl: string; documentNumber: string }
+    /**
+     * Sent for signature: a POST to signUrl answers the signing page's address. `changedSinceSigned`
+     * names the version the customer signed before the booking changed.
+     */
+    | { state: 'awaiting'; signUrl: string; documentNumber: string; changedSinceSigned: { documentId: string; documentNumber: string } | null }
     | { state: 'signed'; documentId: string; documentNumber: string; signedAt: string };
   invoices: PortalInvoice[];
   receipts: { documentId: string; number: string; issuedAt: string }[];
   /** What the customer may pay now: the unpaid balance of every issued invoice. */
   dueNowCents: number;
   securityDepositHeldCents: number;
+}
+
+/** POST /api/portal/bookings/:id/sign: where the signing page of the current agreement is. */
+export interface PortalSignStart {
+  url: string;
 }
 
 /** POST /api/invoices/:id/checkout (staff or the invoice's customer) and POST /api/pay/:token/checkout. */

@@ -86,3 +86,13 @@ export const CompanyRules = z.object({
 });
 export type CompanyRules = z.infer<typeof CompanyRules>;
 export const DEFAULT_RULES: CompanyRules = CompanyRules.parse({});
+
+/**
+ * The rules that size and run the work (turnaround, permits, floor area per guest, seats, wind):
+ * what a role that sees no prices reads. Listed one by one, so a new rule stays out of their
+ * answer until someone decides it carries no money.
+ */
+export const PLANNING_RULE_KEYS = [
+  'turnaroundHours', 'permitAreaSqFt', 'permitOpenSidedAreaSqFt', 'sqFtPerGuest', 'seatsPerBanquetTable', 'windLimitMph', 'occupiedWindLimitMph',
+] as const satisfies readonly (keyof CompanyRules)[];
+export type PlanningRules = Pick<CompanyRules, (typeof PLANNING_RULE_KEYS)[number]>;

@@ -33,6 +33,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { index: true, loader: () => redirect(paths.app.root.getHref()) },
         { path: paths.auth.signIn.path, lazy: () => import('./routes/auth/sign-in').then(c) },
         { path: paths.auth.signUp.path, lazy: () => import('./routes/auth/sign-up').then(c) },
+        { path: paths.auth.signUpConfirm.path, lazy: () => import('./routes/auth/confirm-sign-up').then(c) },
         { path: paths.auth.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(c) },
         { path: paths.auth.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(c) },
         { path: paths.auth.invite.path, lazy: () => import('./routes/auth/invite').then(c) },

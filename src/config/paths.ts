@@ -12,6 +12,8 @@ export const paths = {
   auth: {
     signIn: { path: '/sign-in', getHref: (next?: string) => withQuery('/sign-in', { next }) },
     signUp: { path: '/sign-up', getHref: () => '/sign-up' },
+    /** The e-mailed link that finishes a sign-up. */
+    signUpConfirm: { path: '/sign-up/confirm', getHref: (token?: string) => withQuery('/sign-up/confirm', { token }) },
     forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
     resetPassword: { path: '/reset-password', getHref: (token?: string) => withQuery('/reset-password', { token }) },
     invite: { path: '/invite', getHref: (token?: string) => withQuery('/invite', { token }) },

@@ -14,9 +14,10 @@ afterAll(async () => {
 // What each demo role must see in the main navigation (the mail inbox shows while the fakes run).
 const expected: Record<string, string[]> = {
   'owner@demo.test': ['Home', 'Day sheets', 'Bookings', 'Invoices', 'Exports', 'Reports', 'Customers', 'Catalog', 'Users', 'Company settings', 'Mail inbox'],
-  'office@demo.test': ['Home', 'Day sheets', 'Bookings', 'Invoices', 'Customers', 'Catalog', 'Mail inbox'],
-  'crew@demo.test': ['Home', 'Day sheets', 'Bookings', 'Customers', 'Catalog', 'Mail inbox'],
-  'books@demo.test': ['Home', 'Bookings', 'Invoices', 'Exports', 'Reports', 'Customers', 'Catalog', 'Mail inbox'],
+  // The demo's caught mail holds live sign-in links: the owner's only.
+  'office@demo.test': ['Home', 'Day sheets', 'Bookings', 'Invoices', 'Customers', 'Catalog'],
+  'crew@demo.test': ['Home', 'Day sheets', 'Bookings', 'Customers', 'Catalog'],
+  'books@demo.test': ['Home', 'Bookings', 'Invoices', 'Exports', 'Reports', 'Customers', 'Catalog'],
 };
 
 describe('signing in as each demo role', () => {

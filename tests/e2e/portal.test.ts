@@ -280,3 +280,22 @@ describe('a pay link from the invoice e-mail', () => {
     await context.close();
   });
 });
+
+describe('a customer opens the agreement to sign from their pages', () => {
+  it('"Read and sign" asks for a signing link (a POST with the CSRF header) and opens the signing page; the page names the one company', { timeout: 120_000 }, async () => {
+    const s = await bookingWithInvoices('Perpetua Lindqvist');
+    expect((await s.office.post(`/api/bookings/${s.booking.id}/agreement`)).status).toBe(201);
+    const context = await phone();
+    const page = await context.newPage();
+    await signInByMail(page, s.email, `/portal/bookings/${s.booking.id}`);
+    await page.getByRole('heading', { level: 1, name: `Booking ${s.booking.reference}` }).waitFor();
+    await page.goto(`${appUrl()}/portal/bookings`);
+    await page.getByText(`These are your rentals with ${s.company.organization.name}.`).waitFor();
+    await page.goto(`${appUrl()}/portal/bookings/${s.booking.id}`);
+    await page.getByRole('heading', { level: 1, name: `Booking ${s.booking.reference}` }).waitFor();
+    await page.getByRole('button', { name: 'Read and sign' }).first().click();
+    await page.waitForURL(/\/sign\/[A-Za-z0-9_-]+$/);
+    await page.getByRole('heading', { level: 1, name: 'Sign your rental agreement' }).waitFor();
+    await context.close();
+  });
+});

@@ -3,8 +3,15 @@
  * is created, its private key kept encrypted at rest with a key from the settings, and turned
  * into a short-lived P12 for @signpdf's signer at signing time.
  */
-import { createCipheriv, createDecipheriv, createHash, generateKeyPairSync, randomBytes, scryptSync } from 'node:crypto';
+import { createCipheriv, createDecipheriv, createHash, generateKeyPair, generateKeyPairSync, randomBytes, scrypt, scryptSync, sign } from 'node:crypto';
+import { promisify } from 'node:util';
 import forge from 'node-forge';
+
+const RSA_KEY = {
+  modulusLength: 2048,
+  publicKeyEncoding: { type: 'spki', format: 'pem' },
+  privateKeyEncoding: { type: 'pkcs8', format: 'pem' },
+} as const;
 
 export interface CompanyCertificate {
   certificatePem: string;
@@ -25,18 +32,24 @@ export function certificateFingerprint(certificatePem: string): string {
  * forge's pure-JavaScript key generation; forge builds and signs the certificate.
  */
 export function createCompanyCertificate(companyName: string, opts: { years?: number } = {}): CompanyCertificate {
+  const { privateKey: privateKeyPem } = generateKeyPairSync('rsa', RSA_KEY);
+  const privateKey = forge.pki.privateKeyFromPem(privateKeyPem) as forge.pki.rsa.PrivateKey;
+  const cert = unsignedCertificate(companyName, opts.years, forge.pki.setRsaPublicKey(privateKey.n, privateKey.e));
+  cert.sign(privateKey, forge.md.sha256.create());
+
+  const certificatePem = forge.pki.certificateToPem(cert);
+  return { certificatePem, privateKeyPem, fingerprintSha256: certificateFingerprint(certificatePem) };
+}
+
+// forge's own (node-forge lib/x509.js), which @types/node-forge leaves out.
+const forgeTbs = forge.pki as unknown as { getTBSCertificate(cert: forge.pki.Certificate): forge.asn1.Asn1 };
+
+/** The certificate before its signature: subject, validity, serial and extensions. */
+function unsignedCertificate(companyName: string, yearsValid: number | undefined, publicKey: forge.pki.PublicKey) {
   const name = companyName.trim();
   if (!name) throw new Error('A signing certificate needs the company name.');
-  const years = opts.years ?? 10;
+  const years = yearsValid ?? 10;
   if (!Number.isInteger(years) || years < 1 || years > 30) throw new Error('A signing certificate is valid for 1 to 30 years.');
-
-  const { privateKey: privateKeyPem } = generateKeyPairSync('rsa', {
-    modulusLength: 2048,
-    publicKeyEncoding: { type: 'spki', format: 'pem' },
-    privateKeyEncoding: { type: 'pkcs8', format: 'pem' },
-  });
-  const privateKey = forge.pki.privateKeyFromPem(privateKeyPem) as forge.pki.rsa.PrivateKey;
-  const publicKey = forge.pki.setRsaPublicKey(privateKey.n, privateKey.e);
 
   const cert = forge.pki.createCertificate();
   cert.publicKey = publicKey;
@@ -62,10 +75,35 @@ export function createCompanyCertificate(companyName: string, opts: { years?: nu
     { name: 'keyUsage', critical: true, digitalSignature: true, nonRepudiation: true },
     { name: 'subjectKeyIdentifier' },
   ]);
-  cert.sign(privateKey, forge.md.sha256.create());
+  return cert;
+}
 
-  const certificatePem = forge.pki.certificateToPem(cert);
-  return { certificatePem, privateKeyPem, fingerprintSha256: certificateFingerprint(certificatePem) };
+/**
+ * The same certificate made without holding the event loop (sign-up makes one): the RSA key, the
+ * certificate's signature and the key-encryption key (scrypt) are all computed on libuv's thread
+ * pool by node:crypto; forge only lays out the certificate (a few milliseconds). Signing with
+ * forge's pure-JavaScript RSA took a quarter of a second of the event loop.
+ */
+export async function generateCompanyCertificate(companyName: string, secret: string, opts: { years?: number } = {}) {
+  if (!secret) throw new Error('The key-encryption secret is empty.');
+  const { privateKey: privateKeyPem, publicKey: publicKeyPem } = await promisify(generateKeyPair)('rsa', RSA_KEY);
+  const cert = unsignedCertificate(companyName, opts.years, forge.pki.publicKeyFromPem(publicKeyPem));
+  // What forge's cert.sign does, with the RSA signature (PKCS#1 v1.5 over SHA-256) from node:crypto.
+  cert.signatureOid = cert.siginfo.algorithmOid = forge.pki.oids.sha256WithRSAEncryption;
+  cert.tbsCertificate = forgeTbs.getTBSCertificate(cert);
+  const tbs = Buffer.from(forge.asn1.toDer(cert.tbsCertificate).getBytes(), 'binary');
+  const signature = await new Promise<Buffer>((resolve, reject) => sign('sha256', tbs, privateKeyPem, (err, sig) => (err ? reject(err) : resolve(sig))));
+  cert.signature = signature.toString('binary');
+  const der = Buffer.from(forge.asn1.toDer(forge.pki.certificateToAsn1(cert)).getBytes(), 'binary');
+
+  const salt = randomBytes(16);
+  const key = await new Promise<Buffer>((resolve, reject) => scrypt(secret, salt, 32, SCRYPT, (err, k) => (err ? reject(err) : resolve(k))));
+  return {
+    certificatePem: forge.pki.certificateToPem(cert),
+    privateKeyPem,
+    fingerprintSha256: createHash('sha256').update(der).digest('hex'),
+    privateKeyEncrypted: sealPrivateKey(privateKeyPem, key, salt),
+  };
 }
 
 /*
@@ -85,8 +123,13 @@ function keyFrom(secret: string, salt: Buffer): Buffer {
 
 export function encryptPrivateKey(pem: string, secret: string): string {
   const salt = randomBytes(16);
+  return sealPrivateKey(pem, keyFrom(secret, salt), salt);
+}
+
+function sealPrivateKey(pem: string, key: Buffer, salt: Buffer): string {
+  if (key.length !== 32) throw new Error('The key-encryption key must be 32 bytes.');
   const iv = randomBytes(12);
-  const cipher = createCipheriv('aes-256-gcm', keyFrom(secret, salt), iv);
+  const cipher = createCipheriv('aes-256-gcm', key, iv);
   cipher.setAAD(Buffer.from(VERSION));
   const ciphertext = Buffer.concat([cipher.update(pem, 'utf8'), cipher.final()]);
   const tag = cipher.getAuthTag();

@@ -8,6 +8,7 @@ export {
   createCompanyCertificate,
   decryptPrivateKey,
   encryptPrivateKey,
+  generateCompanyCertificate,
   toP12,
   type CompanyCertificate,
 } from './certificate';

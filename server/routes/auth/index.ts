@@ -1,27 +1,43 @@
 import { Router } from 'express';
 import {
-  InviteAccept, LoginRequest, PasswordResetConfirm, PasswordResetRequest, SignupRequest, Token,
+  InviteAccept, LoginRequest, PasswordResetConfirm, PasswordResetRequest, SignupConfirm, SignupRequest, Token, type SignupAccepted,
 } from '../../../shared/schemas/auth';
 import { z } from 'zod';
 import { withTransaction } from '../../db';
-import {
-  acceptInvite, confirmPasswordReset, findLiveToken, requestPasswordReset, signup, verifyCredentials,
-} from '../../commands/accounts';
+import { acceptInvite, confirmPasswordReset, findLiveToken, verifyCredentials } from '../../commands/accounts';
+import { confirmSignup, requestSignup, SIGNUP_ACCEPTED } from '../../commands/signups';
+import type { AccountRequest } from '../../jobs/accountRequests';
 import { audit } from '../../commands/audit';
 import { HttpError } from '../../errors';
 import { auth, authenticate } from '../../middlewares/authenticate';
-import { assertLoginAllowed, consumePasswordReset, recordLoginFailure, recordLoginSuccess } from '../../middlewares/rateLimit';
+import { beginLoginAttempt, consumePasswordReset, consumeSignup } from '../../middlewares/rateLimit';
 import { parsed, validate } from '../../middlewares/validate';
 import { Organization, Session } from '../../models';
 import { presentMe } from '../../presenters/me';
+import { queueJob } from '../../services/jobs';
+import { assertNewPassword, hashPassword } from '../../services/passwords';
 import { clearSessionCookie, revokeAllSessions, startSession } from '../../services/sessions';
 
 export const authRouter = Router();
 
+/**
+ * A sign-up is answered the same for every address, with the same work (the password's hash on a
+ * worker thread, one request row, one job); the e-mail says the rest (commands/signups.ts).
+ */
 authRouter.post('/signup', validate(SignupRequest), async (req, res) => {
   const input = parsed<SignupRequest>(res);
+  await assertNewPassword(input.password);
+  await consumeSignup(req, input.email);
+  const passwordHash = await hashPassword(input.password);
+  await withTransaction((t) => requestSignup({ ...input, passwordHash }, req, t));
+  res.status(202).json({ message: SIGNUP_ACCEPTED } satisfies SignupAccepted);
+});
+
+/** The e-mailed link: makes the company and its owner, and signs the owner in. */
+authRouter.post('/signup/confirm', validate(SignupConfirm), async (req, res) => {
+  const { token } = parsed<SignupConfirm>(res);
   const { user, organization } = await withTransaction(async (t) => {
-    const created = await signup(input, req, t);
+    const created = await confirmSignup(token, req, t);
     await startSession(req, res, created.user, t);
     return created;
   });
@@ -30,13 +46,11 @@ authRouter.post('/signup', validate(SignupRequest), async (req, res) => {
 
 authRouter.post('/login', validate(LoginRequest), async (req, res) => {
   const { email, password } = parsed<LoginRequest>(res);
-  await assertLoginAllowed(req, email);
+  // Counted before the password is checked, so parallel guesses cannot slip past the limit.
+  const attempt = await beginLoginAttempt(req, email);
   const user = await verifyCredentials(email, password);
-  if (!user) {
-    await recordLoginFailure(req, email);
-    throw new HttpError(401, 'invalid_credentials', 'E-mail or password is not right.');
-  }
-  await recordLoginSuccess(req, email);
+  if (!user) throw new HttpError(401, 'invalid_credentials', 'E-mail or password is not right.');
+  await attempt.succeeded();
   const organization = await Organization.findByPk(user.organizationId);
   await withTransaction(async (t) => {
     await startSession(req, res, user, t);
@@ -70,8 +84,8 @@ authRouter.get('/me', authenticate, (req, res) => {
 authRouter.post('/password-reset/request', validate(PasswordResetRequest), async (req, res) => {
   const { email } = parsed<PasswordResetRequest>(res);
   await consumePasswordReset(req, email);
-  await withTransaction((t) => requestPasswordReset(email, req, t));
-  // The same answer whether or not the address has an account.
+  // The job looks the address up: the same work, answer and time whether or not it has an account.
+  await queueJob('account-request', { kind: 'password-reset', email, requestedFrom: req.ip ?? null } satisfies AccountRequest);
   res.status(202).json({ message: 'If that address has an account, a link is on its way.' });
 });
 

@@ -13,6 +13,7 @@ import { parsed, validate } from '../../middlewares/validate';
 import { Booking, Customer, StoredFile, type User } from '../../models';
 import { authorize, sameOrganization } from '../../policies';
 import { presentCustomer } from '../../presenters/customer';
+import { contentDisposition } from '../../services/downloads';
 import { deleteFile, readFile, storeFile } from '../../services/storage';
 
 export const customersRouter = Router();
@@ -142,7 +143,7 @@ customersRouter.get('/:id/exemption-certificate', authenticate, validate(IdParam
   const file = customer.exemptionCertificateId ? await readFile(user.organizationId, customer.exemptionCertificateId) : null;
   if (!file) throw notFound('The certificate');
   res.setHeader('Content-Type', file.contentType);
-  res.setHeader('Content-Disposition', `attachment; filename="${file.filename.replace(/["\\\r\n]/g, '_')}"`);
+  res.setHeader('Content-Disposition', contentDisposition(file.filename));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.send(file.data);
 });

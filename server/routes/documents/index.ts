@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { IdParams } from '../../../shared/schemas/common';
 import {
   ClauseInput, SendDocumentRequest, TEMPLATE_NAMES, TemplatePreviewRequest, TemplateSource, type DocumentKind, type TemplateName,
+  type BookingDocumentList,
 } from '../../../shared/schemas/documents';
 import { audit } from '../../commands/audit';
 import { issueDocument, sendDocument } from '../../commands/documents';
@@ -17,11 +18,13 @@ import { parsed, validate } from '../../middlewares/validate';
 import { Booking, CompanyClause, Customer, Document, DocumentSend, DocumentTemplate, User } from '../../models';
 import { authorize, can, sameOrganization } from '../../policies';
 import { presentBooking } from '../../presenters/booking';
-import { presentClause, presentDocument, presentTemplate } from '../../presenters/document';
+import { presentAgreementStatus, presentClause, presentDocument, presentTemplate } from '../../presenters/document';
+import { agreementStateOf } from '../../services/agreementState';
 import {
   activeClauses, checkClause, checkTemplate, ensureClauseLibrary, KIND_OF_TEMPLATE, occupancyOf, templateSource, variablesFor,
 } from '../../services/documents';
 import { rulesOf } from '../../services/rules';
+import { contentDisposition } from '../../services/downloads';
 import { readFile } from '../../services/storage';
 import { findPricedBooking } from '../../services/bookingRecords';
 
@@ -93,7 +96,8 @@ documentsRouter.get('/bookings/:id/documents', authenticate, validate(IdParams, 
   authorize(user, 'booking', 'read', booking);
   authorize(user, 'document', 'readTemplates');
   const docs = await Document.findAll({ where: { bookingId: booking.id, organizationId: user.organizationId }, order: [['createdAt', 'DESC']] });
-  res.json({ data: await presentMany(docs, user), total: docs.length });
+  const body: BookingDocumentList = { data: await presentMany(docs, user), total: docs.length, agreement: presentAgreementStatus(await agreementStateOf(booking.id)) };
+  res.json(body);
 });
 
 async function loadDocument(actor: User, id: string) {
@@ -117,7 +121,7 @@ documentsRouter.get('/documents/:id/pdf', authenticate, validate(IdParams, 'para
   if (!file) throw notFound('The stored PDF');
   const inline = req.query.inline === '1';
   res.setHeader('Content-Type', 'application/pdf');
-  res.setHeader('Content-Disposition', `${inline ? 'inline' : 'attachment'}; filename="${doc.number}.pdf"`);
+  res.setHeader('Content-Disposition', contentDisposition(`${doc.number}.pdf`, inline ? 'inline' : 'attachment'));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Cache-Control', 'private, no-store');
   res.setHeader('ETag', `"${doc.sha256}"`);

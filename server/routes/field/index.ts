@@ -22,6 +22,8 @@ import { Booking, CalendarFeed, FieldPhoto, Organization, User } from '../../mod
 import { authorize, can, sameOrganization } from '../../policies';
 import { calendarFor } from '../../services/calendarFeed';
 import { crewOf, daySheet, fieldBooking } from '../../services/fieldDay';
+import { contentDisposition } from '../../services/downloads';
+import { documentLogo, keptImage } from '../../services/images';
 import { readFile } from '../../services/storage';
 import { hashToken } from '../../services/tokens';
 import { chargesRouter } from './charges';
@@ -57,10 +59,9 @@ fieldRouter.get('/days/:date/pdf', authenticate, validate(DayParams, 'params'), 
   authorize(user, 'field', 'read');
   const { date } = parsed<DayParams>(res, 'params');
   const sheet = await daySheet(user, organization, date);
-  const logo = organization.logoFileId ? await readFile(organization.id, organization.logoFileId) : null;
-  const pdf = await renderDaySheetPdf(sheet, { name: organization.name, logo: logo?.data ?? null });
+  const pdf = await renderDaySheetPdf(sheet, { name: organization.name, logo: await documentLogo(organization) });
   res.setHeader('Content-Type', 'application/pdf');
-  res.setHeader('Content-Disposition', `inline; filename="day-sheet-${date}.pdf"`);
+  res.setHeader('Content-Disposition', contentDisposition(`day-sheet-${date}.pdf`, 'inline'));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Cache-Control', 'private, no-cache');
   res.send(pdf);
@@ -122,9 +123,11 @@ fieldRouter.post(
     if (!detected || !(PHOTO_TYPES as readonly string[]).includes(detected.mime)) {
       throw new HttpError(415, 'unsupported_media_type', 'Upload a photo: a JPEG, PNG, WEBP or AVIF image.', { file: 'Not a photo.' });
     }
+    // Refused by its header when too large; kept as a JPEG at most 2560 px on the long side.
+    const photo = await keptImage(file.buffer, 'photo');
     const base = (file.originalname.replace(/\.[^.]*$/, '').replace(/[^\w .-]+/g, '_').trim() || 'photo').slice(0, 200);
     await withTransaction((t) =>
-      addPhoto(user, bookingId(res), { filename: `${base}.${detected.ext}`, contentType: detected.mime, data: file.buffer }, parsed<z.output<typeof PhotoFields>>(res, 'query'), req, t),
+      addPhoto(user, bookingId(res), { filename: `${base}.${photo.ext}`, contentType: photo.contentType, data: photo.data }, parsed<z.output<typeof PhotoFields>>(res, 'query'), req, t),
     );
     await answer(req, res, 201);
   },
@@ -140,7 +143,7 @@ fieldRouter.get('/photos/:id', authenticate, validate(IdParams, 'params'), async
   res.setHeader('Content-Type', file.contentType);
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");
-  res.setHeader('Content-Disposition', `inline; filename="${file.filename.replace(/["\\\r\n]/g, '_')}"`);
+  res.setHeader('Content-Disposition', contentDisposition(file.filename, 'inline'));
   res.setHeader('Cache-Control', 'private, max-age=3600');
   res.send(file.data);
 });
@@ -232,10 +235,12 @@ fieldRouter.get('/calendar/:file', validate(FeedParams, 'params'), async (req, r
   if (!feed) throw notFound('That calendar');
   const user = await User.findOne({ where: { id: feed.userId, organizationId: feed.organizationId, status: 'active' } });
   const organization = await Organization.findByPk(feed.organizationId);
-  if (!user || !organization) throw notFound('That calendar');
+  // The owner's role and status as they are now, at every read: a person moved to a role without
+  // the calendar (or disabled) loses the feed at once, without waiting for anyone to revoke it.
+  if (!user || !organization || !can(user, 'field', 'calendar')) throw notFound('That calendar');
   await feed.update({ lastUsedAt: new Date() });
   res.setHeader('Content-Type', 'text/calendar; charset=utf-8');
-  res.setHeader('Content-Disposition', 'inline; filename="stops.ics"');
+  res.setHeader('Content-Disposition', contentDisposition('stops.ics', 'inline'));
   res.setHeader('Cache-Control', 'private, max-age=300');
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.send(await calendarFor(user, organization));

@@ -14,6 +14,7 @@ import { sequelize, withTransaction } from '../../db';
 import { bookingBalance, customerCreditCents, customerStatement, paidCents, securityDepositHeldCents, trialBalance } from '../../ledger/balances';
 import { ensureChart } from '../../ledger/chart';
 import { audit } from '../../commands/audit';
+import { revokePayLinks } from '../../commands/payLinks';
 import { conflict } from '../../errors';
 import { auth, authenticate } from '../../middlewares/authenticate';
 import { parsed, validate } from '../../middlewares/validate';
@@ -95,6 +96,15 @@ invoicesRouter.post('/invoices/:id/void', authenticate, validate(IdParams, 'para
   // Only the owner voids; an invoice with money on it gets the command's 409 (use a credit note), not a 403.
   if (user.role !== 'owner') authorize(user, 'invoice', 'void', found);
   const invoice = await withTransaction((t) => voidInvoice(user, found.id, parsed<{ reason: string }>(res).reason, req, t));
+  res.json((await presentMany([invoice], user, organization))[0]);
+});
+
+/** Every pay link of the invoice made so far stops working (410 for the customer); the answer carries a fresh one. */
+invoicesRouter.post('/invoices/:id/pay-links/revoke', authenticate, validate(IdParams, 'params'), async (req, res) => {
+  const { user, organization } = auth(req);
+  const found = sameOrganization(user, await Invoice.findByPk(parsed<{ id: string }>(res, 'params').id), 'That invoice');
+  authorize(user, 'invoice', 'revokePayLink', found);
+  const invoice = await withTransaction((t) => revokePayLinks(user, found.id, req, t));
   res.json((await presentMany([invoice], user, organization))[0]);
 });
 

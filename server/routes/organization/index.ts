@@ -3,6 +3,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import { LOGO_MAX_BYTES, LOGO_TYPES } from '../../../shared/schemas/documents';
 import { HttpError, notFound } from '../../errors';
 import { singleFile } from '../../middlewares/upload';
+import { keptImage } from '../../services/images';
 import { deleteFile, readFile, storeFile } from '../../services/storage';
 import { UpdateOrganizationRequest } from '../../../shared/schemas/organization';
 import { audit } from '../../commands/audit';
@@ -27,10 +28,13 @@ organizationRouter.post('/logo', authenticate, (req, _res, next) => {
   if (!detected || !(LOGO_TYPES as readonly string[]).includes(detected.mime)) {
     throw new HttpError(415, 'unsupported_media_type', 'Upload the logo as a PNG or JPEG image.', { file: 'Not a PNG or JPEG.' });
   }
+  // Refused by its header when too large; kept at the size the documents print it.
+  const logo = await keptImage(file.buffer, 'logo');
   const org = await withTransaction(async (t) => {
     const o = (await Organization.findByPk(user.organizationId, { transaction: t, lock: t.LOCK.UPDATE }))!;
     const old = o.logoFileId;
-    const stored = await storeFile({ organizationId: o.id, filename: file.originalname.slice(0, 255) || `logo.${detected.ext}`, contentType: detected.mime, data: file.buffer, purpose: 'logo' }, t);
+    const name = (file.originalname.replace(/\.[^.]*$/, '').slice(0, 200) || 'logo') + `.${logo.ext}`;
+    const stored = await storeFile({ organizationId: o.id, filename: name, contentType: logo.contentType, data: logo.data, purpose: 'logo' }, t);
     o.logoFileId = stored.id;
     await o.save({ transaction: t });
     if (old) await deleteFile(o.id, old, t);

@@ -13,8 +13,9 @@ import { auth, authenticate } from '../../middlewares/authenticate';
 import { fieldErrors, parsed, validate } from '../../middlewares/validate';
 import { badRequest } from '../../errors';
 import { Item, Organization } from '../../models';
-import { authorize, can } from '../../policies';
+import { authorize } from '../../policies';
 import { checkAvailability } from '../../services/availability';
+import { presentRules } from '../../presenters/rules';
 import { rulesOf } from '../../services/rules';
 
 /** The planner, the quote preview, live availability and the company's rules. */
@@ -65,7 +66,7 @@ planningRouter.post('/availability/check', authenticate, validate(AvailabilityCh
 
 planningRouter.get('/organization/rules', authenticate, (req, res) => {
   const { user, organization } = auth(req);
-  res.json({ ...rulesOf(organization), can: { update: can(user, 'organization', 'update', organization) } });
+  res.json(presentRules(organization, user));
 });
 
 planningRouter.put('/organization/rules', authenticate, async (req, res) => {
@@ -95,5 +96,5 @@ planningRouter.put('/organization/rules', authenticate, async (req, res) => {
     await audit({ organizationId: o.id, actorUserId: user.id, action: 'organization.rules_updated', subjectType: 'organization', subjectId: o.id, data: { before, after: rules } }, req, t);
     return o;
   });
-  res.json({ ...rulesOf(org), can: { update: true } });
+  res.json(presentRules(org, user));
 });

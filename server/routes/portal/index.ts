@@ -1,7 +1,10 @@
 /**
  * The customer's own pages (no password: an e-mailed one-time link), pay links from invoice
- * e-mails, and card checkouts. A customer sees a booking only when the booking's customer record
- * has their e-mail address; anything else is a 404, as if it did not exist.
+ * e-mails, and card checkouts. A customer session belongs to one company: the customer sees a
+ * booking only when it is that company's and the booking's customer record has their e-mail
+ * address; anything else is a 404, as if it did not exist. A customer of two companies gets one
+ * link per company and signs in to each separately, so one company can never put its invoices
+ * on the pages of another company's customer.
  */
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import { col, fn, Op, where as sqlWhere } from 'sequelize';
@@ -10,7 +13,7 @@ import { dateInZone } from '../../../shared/dates';
 import { IdParams } from '../../../shared/schemas/common';
 import {
   CheckoutRequest, PortalSessionRequest, PortalSignInRequest, type CheckoutResponse, type CheckoutState, type PayLink, type PortalBooking,
-  type PortalBookingSummary, type PortalCompany, type PortalInvoice, type PortalMe,
+  type PortalBookingSummary, type PortalCompany, type PortalInvoice, type PortalMe, type PortalSignStart,
 } from '../../../shared/schemas/portal';
 import { startCheckout, systemActor } from '../../commands/cardPayments';
 import { openSigningLink } from '../../commands/signing';
@@ -25,16 +28,17 @@ import {
   Booking, BookingLine, CardCheckout, Customer, CustomerSession, CustomerSignInToken, Document, Invoice, Organization, Payment, PaymentAllocation, SigningRequest,
 } from '../../models';
 import { authorize, sameOrganization } from '../../policies';
+import { agreementStateOf } from '../../services/agreementState';
 import { clearCustomerSessionCookie, readCustomerSession, startCustomerSession } from '../../services/customerSessions';
-import { queueMail } from '../../services/mailer';
-import { invoiceOfPayLink, payLinkToken } from '../../services/payLinks';
+import { queueJob } from '../../services/jobs';
+import type { AccountRequest } from '../../jobs/accountRequests';
+import { payLinkEnded, payLinkGone, payLinkToken, readPayLink } from '../../services/payLinks';
+import { contentDisposition } from '../../services/downloads';
 import { readFile } from '../../services/storage';
 import { cardPaymentsEnabled } from '../../services/stripe';
-import { hashToken, newToken } from '../../services/tokens';
+import { hashToken } from '../../services/tokens';
 
 export const portalRouter = Router();
-
-const SIGN_IN_MINUTES = 15;
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -51,15 +55,22 @@ async function customerOnly(req: Request, _res: Response, next: NextFunction) {
 
 const sameEmail = (email: string) => sqlWhere(fn('lower', col('email')), email.toLowerCase());
 
-/** The customer records (one per company) that carry this e-mail address. */
-async function customersOf(email: string) {
-  return Customer.findAll({ where: sqlWhere(fn('lower', col('email')), email.toLowerCase()), attributes: ['id', 'organizationId', 'name', 'email'] });
+/** The customer records of the session's company that carry its e-mail address. */
+async function customersOf(session: { email: string; organizationId: string }) {
+  return Customer.findAll({
+    where: { [Op.and]: [sameEmail(session.email), { organizationId: session.organizationId }] },
+    attributes: ['id', 'organizationId', 'name', 'email'],
+    order: [['createdAt', 'ASC']],
+  });
 }
 
-/** A booking of this customer, or a 404 (never a 403: another customer's booking does not exist for them). */
-async function ownBooking(email: string, bookingId: string) {
+/** A booking of this customer with this company, or a 404 (never a 403: another customer's booking does not exist for them). */
+async function ownBooking(session: { email: string; organizationId: string }, bookingId: string) {
   const booking = await Booking.findByPk(bookingId, { include: [{ model: Customer, as: 'customer' }, { model: BookingLine, as: 'lines' }] });
-  if (!booking || !booking.customer?.email || booking.customer.email.toLowerCase() !== email.toLowerCase() || !(await shownToCustomer(booking))) {
+  if (
+    !booking || booking.organizationId !== session.organizationId || !booking.customer?.email ||
+    booking.customer.email.toLowerCase() !== session.email.toLowerCase() || !(await shownToCustomer(booking))
+  ) {
     throw notFound('That booking');
   }
   return booking as Booking & { customer: Customer; lines: BookingLine[] };
@@ -99,12 +110,15 @@ function summary(b: Booking, o: Organization, invoices: Invoice[], awaitingSigna
   };
 }
 
+/** The current version's state: a signature on an earlier version does not count for a changed booking. */
 async function agreementOf(bookingId: string): Promise<PortalBooking['agreement']> {
-  const signed = await Document.findOne({ where: { bookingId, kind: 'signed_agreement', status: 'issued' }, order: [['createdAt', 'DESC']] });
-  if (signed) return { state: 'signed', documentId: signed.id, documentNumber: signed.number, signedAt: (signed.issuedAt ?? signed.createdAt).toISOString() };
-  const current = await Document.findOne({ where: { bookingId, kind: 'rental_agreement', status: 'issued' }, order: [['version', 'DESC']] });
-  if (!current) return { state: 'none' };
-  return { state: 'awaiting', signUrl: `/api/portal/bookings/${bookingId}/sign`, documentNumber: current.number };
+  const a = await agreementStateOf(bookingId);
+  if (a.state === 'none') return { state: 'none' };
+  if (a.state === 'signed') return { state: 'signed', documentId: a.signed.id, documentNumber: a.signed.number, signedAt: (a.signed.issuedAt ?? a.signed.createdAt).toISOString() };
+  return {
+    state: 'awaiting', signUrl: `/api/portal/bookings/${bookingId}/sign`, documentNumber: a.current.number,
+    changedSinceSigned: a.state === 'changed_since_signed' ? { documentId: a.lastSigned.id, documentNumber: a.lastSigned.number } : null,
+  };
 }
 
 // --- signing in ------------------------------------------------------------------------------
@@ -112,14 +126,10 @@ async function agreementOf(bookingId: string): Promise<PortalBooking['agreement'
 portalRouter.post('/portal/sign-in', validate(PortalSignInRequest), async (req, res) => {
   const { email, next } = parsed<z.output<typeof PortalSignInRequest>>(res);
   await consumePortalLink(req, email);
-  if ((await Customer.count({ where: sameEmail(email) })) > 0) {
-    const { token, hash } = newToken();
-    await withTransaction(async (t) => {
-      await CustomerSignInToken.create({ email, tokenHash: hash, next: next ?? null, expiresAt: new Date(Date.now() + SIGN_IN_MINUTES * 60_000) }, { transaction: t });
-      await queueMail(email, 'portal-sign-in', { link: `${env.APP_URL}/portal/welcome?token=${token}` }, t);
-    });
-  }
-  // The same answer whether or not the address is known: nobody learns who rents from whom.
+  // The job looks the address up and mails one link per company that has this customer
+  // (mailPortalSignInLinks): the same work, answer and time whether or not the address is known,
+  // so nobody learns who rents from whom.
+  await queueJob('account-request', { kind: 'portal-sign-in', email, next: next ?? null } satisfies AccountRequest);
   res.status(202).json({ ok: true });
 });
 
@@ -137,16 +147,19 @@ portalRouter.post('/portal/sessions', validate(PortalSessionRequest), async (req
   if (row === 'unknown') throw new HttpError(404, 'link_unknown', 'This sign-in link is not one of ours. Ask for a new one: it takes a minute.');
   if (row === 'used') throw new HttpError(410, 'link_used', 'This sign-in link was already used: each link works once. Ask for a new one: it takes a minute.');
   if (row === 'expired') throw new HttpError(410, 'link_expired', 'This sign-in link has expired: links work for 15 minutes. Ask for a new one: it takes a minute.');
-  await startCustomerSession(req, res, row.email);
-  const [first] = await customersOf(row.email);
-  const body: PortalMe = { email: row.email, name: first?.name ?? '', next: row.next ?? null };
-  res.json(body);
+  await startCustomerSession(req, res, row.email, row.organizationId);
+  res.json(await portalMe(row, row.next ?? null));
 });
 
+/** Who is signed in, and with which company: the pages say so. */
+async function portalMe(session: { email: string; organizationId: string }, next: string | null): Promise<PortalMe> {
+  const [first] = await customersOf(session);
+  const organization = (await Organization.findByPk(session.organizationId))!;
+  return { email: session.email, name: first?.name ?? '', next, company: companyOf(organization) };
+}
+
 portalRouter.get('/portal/me', customerOnly, async (req, res) => {
-  const [first] = await customersOf(req.customer!.email);
-  const body: PortalMe = { email: req.customer!.email, name: first?.name ?? '', next: null };
-  res.json(body);
+  res.json(await portalMe(req.customer!, null));
 });
 
 portalRouter.post('/portal/sign-out', async (req, res) => {
@@ -159,7 +172,7 @@ portalRouter.post('/portal/sign-out', async (req, res) => {
 // --- the customer's bookings -----------------------------------------------------------------
 
 portalRouter.get('/portal/bookings', customerOnly, async (req, res) => {
-  const customers = await customersOf(req.customer!.email);
+  const customers = await customersOf(req.customer!);
   const all = await Booking.findAll({ where: { customerId: { [Op.in]: customers.map((c) => c.id) } }, order: [['eventStart', 'DESC']], limit: 200 });
   const bookings: Booking[] = [];
   for (const b of all) if (await shownToCustomer(b)) bookings.push(b);
@@ -174,7 +187,7 @@ portalRouter.get('/portal/bookings', customerOnly, async (req, res) => {
 });
 
 portalRouter.get('/portal/bookings/:id', customerOnly, validate(IdParams, 'params'), async (req, res) => {
-  const booking = await ownBooking(req.customer!.email, parsed<{ id: string }>(res, 'params').id);
+  const booking = await ownBooking(req.customer!, parsed<{ id: string }>(res, 'params').id);
   const organization = (await Organization.findByPk(booking.organizationId))!;
   const invoices = await issuedInvoicesOf(booking.id);
   const today = dateInZone(new Date(), organization.timeZone);
@@ -196,15 +209,21 @@ portalRouter.get('/portal/bookings/:id', customerOnly, validate(IdParams, 'param
   res.json(body);
 });
 
-/** "Read and sign": a fresh signing link for the current agreement, straight to the signing page. */
-portalRouter.get('/portal/bookings/:id/sign', customerOnly, validate(IdParams, 'params'), async (req, res) => {
-  const booking = await ownBooking(req.customer!.email, parsed<{ id: string }>(res, 'params').id);
-  const current = await Document.findOne({ where: { bookingId: booking.id, kind: 'rental_agreement', status: 'issued' }, order: [['version', 'DESC']] });
-  if (!current) throw new HttpError(404, 'not_found', 'There is no agreement to sign yet.');
-  const signed = await SigningRequest.findOne({ where: { documentId: current.id, status: 'signed' } });
-  if (signed) return res.redirect(303, `/portal/bookings/${booking.id}`);
-  const token = await withTransaction(async (t) => (await openSigningLink(systemActor(booking.organizationId), current, req.customer!.email, req, t)).token);
-  res.redirect(303, `/sign/${token}`);
+/**
+ * "Read and sign": opens a fresh signing link for the current agreement and answers the signing
+ * page's address. A POST behind the CSRF check, since it makes a link (a GET must change nothing).
+ */
+portalRouter.post('/portal/bookings/:id/sign', customerOnly, validate(IdParams, 'params'), async (req, res) => {
+  const booking = await ownBooking(req.customer!, parsed<{ id: string }>(res, 'params').id);
+  const a = await agreementStateOf(booking.id);
+  if (a.state === 'none') throw new HttpError(404, 'not_found', 'There is no agreement to sign yet.');
+  let url = `/portal/bookings/${booking.id}`;
+  if (a.state !== 'signed') {
+    const token = await withTransaction(async (t) => (await openSigningLink(systemActor(booking.organizationId), a.current, req.customer!.email, req, t)).token);
+    url = `/sign/${token}`;
+  }
+  const body: PortalSignStart = { url };
+  res.json(body);
 });
 
 /** A document of the customer's own booking: receipts, invoices, credit notes and the agreements. */
@@ -212,7 +231,7 @@ async function sendPdf(res: Response, doc: Document) {
   const file = await readFile(doc.organizationId, doc.fileId);
   if (!file) throw notFound('That document');
   res.setHeader('Content-Type', 'application/pdf');
-  res.setHeader('Content-Disposition', `attachment; filename="${doc.number}.pdf"`);
+  res.setHeader('Content-Disposition', contentDisposition(`${doc.number}.pdf`));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Cache-Control', 'private, no-store');
   res.send(file.data);
@@ -221,7 +240,7 @@ async function sendPdf(res: Response, doc: Document) {
 portalRouter.get('/portal/documents/:id/pdf', customerOnly, validate(IdParams, 'params'), async (req, res) => {
   const doc = await Document.findByPk(parsed<{ id: string }>(res, 'params').id);
   if (!doc || doc.status === 'void') throw notFound('That document');
-  await ownBooking(req.customer!.email, doc.bookingId);
+  await ownBooking(req.customer!, doc.bookingId);
   await sendPdf(res, doc);
 });
 
@@ -239,14 +258,14 @@ portalRouter.post('/invoices/:id/checkout', validate(IdParams, 'params'), valida
   if (customer) {
     const invoice = await Invoice.findByPk(id);
     if (!invoice) throw notFound('That invoice');
-    const booking = await ownBooking(customer.email, invoice.bookingId);
+    const booking = await ownBooking(customer, invoice.bookingId);
     checkout = await startCheckout({ invoiceId: invoice.id, organizationId: booking.organizationId, amountCents, startedBy: 'customer', returnBase: `${env.APP_URL}/portal/checkouts` });
   } else {
     await new Promise<void>((resolve, reject) => authenticate(req, res, (err?: unknown) => (err ? reject(err) : resolve())));
     const { user } = auth(req);
     const invoice = sameOrganization(user, await Invoice.findByPk(id), 'That invoice');
     authorize(user, 'invoice', 'recordPayment', invoice);
-    checkout = await startCheckout({ invoiceId: invoice.id, organizationId: user.organizationId, amountCents, startedBy: 'staff', returnBase: `${env.APP_URL}/pay/${payLinkToken(invoice.id)}/checkouts` });
+    checkout = await startCheckout({ invoiceId: invoice.id, organizationId: user.organizationId, amountCents, startedBy: 'staff', returnBase: `${env.APP_URL}/pay/${payLinkToken(invoice.id, invoice.payLinkGeneration)}/checkouts` });
   }
   const body: CheckoutResponse = { url: checkout.url!, checkoutId: checkout.id };
   res.status(201).json(body);
@@ -264,7 +283,7 @@ async function checkoutState(checkout: CardCheckout): Promise<CheckoutState> {
 portalRouter.get('/portal/checkouts/:id', customerOnly, validate(IdParams, 'params'), async (req, res) => {
   const checkout = await CardCheckout.findByPk(parsed<{ id: string }>(res, 'params').id);
   if (!checkout) throw notFound('That payment');
-  await ownBooking(req.customer!.email, checkout.bookingId);
+  await ownBooking(req.customer!, checkout.bookingId);
   res.json(await checkoutState(checkout));
 });
 
@@ -275,9 +294,12 @@ const PayCheckoutParams = PayParams.extend({ checkoutId: z.uuid() });
 const PayDocumentParams = PayParams.extend({ documentId: z.uuid() });
 
 async function payLinkInvoice(token: string) {
-  const invoiceId = invoiceOfPayLink(token);
-  const invoice = invoiceId ? await Invoice.findByPk(invoiceId) : null;
-  if (!invoice || invoice.status === 'draft' || invoice.kind === 'credit_note') throw new HttpError(404, 'not_found', 'This payment link is not valid. Sign in to see your rentals instead.');
+  const claim = readPayLink(token);
+  const invoice = claim ? await Invoice.findByPk(claim.invoiceId) : null;
+  if (!claim || !invoice || invoice.status === 'draft' || invoice.kind === 'credit_note') throw new HttpError(404, 'not_found', 'This payment link is not valid. Sign in to see your rentals instead.');
+  // A genuine link past its end, or withdrawn by the office: 410, and the company sends a new one.
+  const ended = payLinkEnded(claim, invoice);
+  if (ended) throw payLinkGone(ended, (await Organization.findByPk(invoice.organizationId))!);
   return invoice;
 }
 

@@ -22,6 +22,7 @@ import { disclosureFor } from '../../services/disclosure';
 import { queueMail } from '../../services/mailer';
 import { deskEmails } from '../../services/bookingRecords';
 import { rulesOf } from '../../services/rules';
+import { contentDisposition } from '../../services/downloads';
 import { readFile } from '../../services/storage';
 import { createHash } from 'node:crypto';
 import { env } from '../../env';
@@ -188,7 +189,7 @@ signingRouter.get('/sign/:token/document.pdf', rateLimited, validate(TokenParams
   const doc = (await Document.findByPk(request.documentId))!;
   const bytes = await issuedBytes(doc);
   res.setHeader('Content-Type', 'application/pdf');
-  res.setHeader('Content-Disposition', `inline; filename="${doc.number}.pdf"`);
+  res.setHeader('Content-Disposition', contentDisposition(`${doc.number}.pdf`, 'inline'));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Cache-Control', 'private, no-store');
   res.send(bytes);
@@ -224,7 +225,7 @@ signingRouter.post('/sign/:token/withdraw-consent', rateLimited, validate(TokenP
     const org = (await Organization.findByPk(r.organizationId, { transaction: t }))!;
     const booking = (await Booking.findByPk(r.bookingId, { include: [{ model: Customer, as: 'customer' }], transaction: t })) as Booking & { customer: Customer };
     for (const to of new Set([org.email, ...(await deskEmails(org.id, t))].filter(Boolean))) {
-      await queueMail(to, 'signing-declined', { reference: booking.reference, customerName: booking.customer.name, link: `${env.APP_URL}/app/bookings/${booking.id}` }, t);
+      await queueMail(org.id, to, 'signing-declined', { reference: booking.reference, customerName: booking.customer.name, link: `${env.APP_URL}/app/bookings/${booking.id}` }, t);
     }
     await audit({ organizationId: org.id, actorUserId: null, action: 'signing.consent_withdrawn', subjectType: 'booking', subjectId: booking.id, data: { requestId: r.id } }, req, t);
     return r;
@@ -265,7 +266,7 @@ signingRouter.get('/sign/:token/signed.pdf', rateLimited, validate(TokenParams, 
   const doc = (await Document.findByPk(request.signedDocumentId))!;
   const file = (await readFile(doc.organizationId, doc.fileId))!;
   res.setHeader('Content-Type', 'application/pdf');
-  res.setHeader('Content-Disposition', `attachment; filename="${doc.number}.pdf"`);
+  res.setHeader('Content-Disposition', contentDisposition(`${doc.number}.pdf`));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Cache-Control', 'private, no-store');
   res.send(file.data);

@@ -3,6 +3,7 @@ import { pipeline } from 'node:stream/promises';
 import type pg from 'pg';
 import QueryStream from 'pg-query-stream';
 import { RAW_TEXT_TYPES } from './db';
+import { safeText } from './format';
 import type { ExportContext } from './run';
 
 /** A row as PostgreSQL prints it: every value text (or null). */
@@ -11,9 +12,20 @@ export type TextRow = Record<string, string | null>;
 /** What an export's queries need: the company, its calendar, and the range. */
 export type ExportScope = Pick<ExportContext, 'organizationId' | 'timeZone' | 'currency' | 'from' | 'to' | 'fromInstant' | 'untilInstant'>;
 
-/** The header, and how a row becomes its record (one field per header column). */
+/** A column of amounts: its cells are printed as they are ("-12.50" is a number, not a formula). */
+export interface AmountColumn {
+  amount: string;
+}
+/** A header column marked as holding amounts; every other column holds text. */
+export const amountColumn = (title: string): AmountColumn => ({ amount: title });
+
+/**
+ * The header, and how a row becomes its record (one field per header column). Every cell of a
+ * column that is not an `amountColumn`, and every header title, is text and goes through
+ * `safeText` in `writeCsv`: one rule for every export, so no column can be forgotten.
+ */
 export interface CsvLayout {
-  header: string[];
+  header: (string | AmountColumn)[];
   toRecord: (row: TextRow) => string[];
 }
 
@@ -60,10 +72,25 @@ export function csvLine(record: readonly (string | null | undefined)[], width = 
   return `${line}\r\n`;
 }
 
+interface TextCells {
+  /** The header's titles, defused like any text cell. */
+  titles: string[];
+  isAmount: boolean[];
+  toRecord: CsvLayout['toRecord'];
+}
+
+function textCells(layout: CsvLayout): TextCells {
+  return {
+    titles: layout.header.map((h) => safeText(typeof h === 'string' ? h : h.amount)),
+    isAmount: layout.header.map((h) => typeof h !== 'string'),
+    toRecord: layout.toRecord,
+  };
+}
+
 /**
  * Streams the rows through a server-side cursor (pg-query-stream), turns each into a CSV line
- * (csvLine) and sends the lines out in chunks of about 64 kB: a header row first, after a UTF-8
- * byte order mark. Memory stays at a batch and a chunk, whatever the range: each stage waits
+ * (text cells defused by `safeText`, then csvLine) and sends the lines out in chunks of about
+ * 64 kB: a header row first, after a UTF-8 byte order mark. Memory stays at a batch and a chunk, whatever the range: each stage waits
  * while the next one is full.
  */
 export async function writeCsv(ctx: ExportContext, out: Writable, exp: CsvExport): Promise<void> {
@@ -74,10 +101,10 @@ export async function writeCsv(ctx: ExportContext, out: Writable, exp: CsvExport
   // bom: spreadsheet programs take a file without one for their local code page, and then
   // mangle names like "Zoë" (common practice, no published source).
   let pending = '\ufeff';
-  let layout: CsvLayout | null = null;
-  const begin = (first: TextRow | null): CsvLayout => {
-    layout = typeof prepared === 'function' ? prepared(first) : prepared;
-    pending += csvLine(layout.header);
+  let layout: TextCells | null = null;
+  const begin = (first: TextRow | null): TextCells => {
+    layout = textCells(typeof prepared === 'function' ? prepared(first) : prepared);
+    pending += csvLine(layout.titles);
     return layout;
   };
   if (typeof prepared !== 'function') begin(null);
@@ -86,8 +113,10 @@ export async function writeCsv(ctx: ExportContext, out: Writable, exp: CsvExport
     writableHighWaterMark: BATCH,
     transform(row: TextRow, _encoding, done) {
       try {
-        const { header, toRecord } = layout ?? begin(row);
-        pending += csvLine(toRecord(row), header.length);
+        const { titles, isAmount, toRecord } = layout ?? begin(row);
+        const record = toRecord(row);
+        for (let i = 0; i < titles.length; i++) if (!isAmount[i]) record[i] = safeText(record[i]);
+        pending += csvLine(record, titles.length);
         ctx.count();
       } catch (err) {
         done(err as Error);

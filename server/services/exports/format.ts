@@ -41,14 +41,19 @@ export function ratePercent(bp: string): string {
 }
 
 /**
- * Free text that a spreadsheet would otherwise run as a formula (a cell starting with =, +, -, @,
- * tab or carriage return) gets a leading apostrophe, as OWASP's "CSV Injection" page recommends.
- * Only for text people typed (names, descriptions, memos, references), never for amounts.
+ * A cell a spreadsheet would otherwise run as a formula (one starting with =, +, -, @, tab or
+ * carriage return) gets a leading apostrophe, which spreadsheets read as "this is text" (OWASP,
+ * "CSV Injection" page; OWASP ASVS 5.0, V1.2.10, lists the same characters). `writeCsv` applies it
+ * to every text cell and header title of every export (account codes and names, labels and
+ * numbers included, whoever typed them), never to a column marked `amountColumn`. Applying it
+ * twice changes nothing: an apostrophe is not one of those characters.
  */
 export function safeText(text: string | null | undefined): string {
   const t = text ?? '';
-  return /^[=+\-@\t\r]/.test(t) ? `'${t}` : t;
+  return FORMULA_START.test(t) ? `'${t}` : t;
 }
+
+const FORMULA_START = /^[=+\-@\t\r]/;
 
 export const METHOD_LABELS: Record<string, string> = {
   cash: 'cash',

@@ -1,6 +1,6 @@
 import { INVOICE_KIND_LABELS, INVOICE_STATUS_LABELS, type InvoiceKind, type InvoiceStatus } from '../../../shared/schemas/invoices';
-import type { CsvExport, ExportScope } from './csv';
-import { centsText, negatedCents, ratePercent, safeText } from './format';
+import { amountColumn, type CsvExport, type ExportScope } from './csv';
+import { centsText, negatedCents, ratePercent } from './format';
 
 /**
  * Invoice lines: one row per line of every invoice and credit note issued in the range (by its
@@ -31,13 +31,13 @@ export const invoiceLinesCsv: CsvExport = {
     return {
       header: [
         'Invoice number', 'Type', 'Status', 'Issue date', 'Customer', 'Booking', 'Line', 'Description', 'Category',
-        'Account code', 'Account name', 'Amount', 'Currency', 'Tax rate %',
+        'Account code', 'Account name', amountColumn('Amount'), 'Currency', 'Tax rate %',
       ],
       toRecord(row) {
         const amount = row.amount ?? '0';
         return [
           row.number ?? '', INVOICE_KIND_LABELS[row.kind as InvoiceKind] ?? row.kind ?? '', INVOICE_STATUS_LABELS[row.status as InvoiceStatus] ?? row.status ?? '',
-          row.issue_date ?? '', safeText(row.customer), row.booking ?? '', row.line_no ?? '', safeText(row.description), row.category ?? '',
+          row.issue_date ?? '', row.customer ?? '', row.booking ?? '', row.line_no ?? '', row.description ?? '', row.category ?? '',
           row.account_code ?? '', row.account_name ?? '', centsText(row.kind === 'credit_note' ? negatedCents(amount) : amount), scope.currency,
           ratePercent(row.tax_rate_bp ?? '0'),
         ];

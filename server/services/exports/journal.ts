@@ -1,5 +1,5 @@
-import type { CsvExport, ExportScope } from './csv';
-import { ACCOUNT_TYPE_LABELS, centsText, entryKindLabel, safeText } from './format';
+import { amountColumn, type CsvExport, type ExportScope } from './csv';
+import { ACCOUNT_TYPE_LABELS, centsText, entryKindLabel } from './format';
 
 /**
  * The general journal: one row per journal line of the entries dated in the range, oldest first,
@@ -39,14 +39,14 @@ export const journalCsv: CsvExport = {
   async prepare(_client, scope) {
     return {
       header: [
-        'Date', 'Entry number', 'Entry', 'Account code', 'Account name', 'Debit', 'Credit', 'Currency', 'Memo',
+        'Date', 'Entry number', 'Entry', 'Account code', 'Account name', amountColumn('Debit'), amountColumn('Credit'), 'Currency', 'Memo',
         'Source', 'Source document', 'Booking', 'Customer', 'Reverses entry',
       ],
       toRecord(row) {
         return [
           row.date ?? '', row.entry_number ?? '', entryKindLabel(row.kind ?? ''), row.account_code ?? '', row.account_name ?? '',
-          centsText(row.debit), centsText(row.credit), scope.currency, safeText(row.memo), row.source_type ?? '', safeText(row.source_document),
-          row.booking ?? '', safeText(row.customer), row.reverses ?? '',
+          centsText(row.debit), centsText(row.credit), scope.currency, row.memo ?? '', row.source_type ?? '', row.source_document ?? '',
+          row.booking ?? '', row.customer ?? '', row.reverses ?? '',
         ];
       },
     };
@@ -79,7 +79,7 @@ export const trialBalanceCsv: CsvExport = {
   orderBy: 'code',
   async prepare(_client, scope) {
     return {
-      header: ['Account code', 'Account name', 'Account type', 'Debit', 'Credit', 'Balance', 'Currency'],
+      header: ['Account code', 'Account name', 'Account type', amountColumn('Debit'), amountColumn('Credit'), amountColumn('Balance'), 'Currency'],
       toRecord(row) {
         return [row.code ?? '', row.name ?? '', ACCOUNT_TYPE_LABELS[row.type ?? ''] ?? row.type ?? '', centsText(row.debit), centsText(row.credit), centsText(row.balance), scope.currency];
       },

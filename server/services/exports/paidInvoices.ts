@@ -1,9 +1,9 @@
 import type pg from 'pg';
 import { INVOICE_KIND_LABELS, type InvoiceKind } from '../../../shared/schemas/invoices';
 import { DEFAULT_CHART } from '../../ledger/chart';
-import type { CsvExport, ExportScope } from './csv';
+import { amountColumn, type CsvExport, type ExportScope } from './csv';
 import { RAW_TEXT_TYPES } from './db';
-import { centsSql, methodLabelSql, ratePercent, safeText } from './format';
+import { centsSql, methodLabelSql, ratePercent } from './format';
 import { PAID_DOCS_CTE } from './paidDocs';
 
 /** Which invoice column feeds each revenue account (by the role the posting rules give it). */
@@ -91,24 +91,24 @@ export const paidInvoicesCsv: CsvExport = {
       const rates = first?.rates ? first.rates.split(' ') : [];
       const header = [
         'Number', 'Type', 'Credits invoice', 'Issue date', 'Paid date', 'Customer', 'Booking',
-        ...accounts.map((a) => `${a.code} ${a.name}`),
-        'Discount',
-        ...rates.map((r) => `Sales tax ${ratePercent(r)}%`),
-        'Total', 'Currency', 'Payment methods and references',
+        ...accounts.map((a) => amountColumn(`${a.code} ${a.name}`)),
+        amountColumn('Discount'),
+        ...rates.map((r) => amountColumn(`Sales tax ${ratePercent(r)}%`)),
+        amountColumn('Total'), 'Currency', 'Payment methods and references',
       ];
       return {
         header,
         toRecord(row) {
           const record = [
             row.number ?? '', INVOICE_KIND_LABELS[row.kind as InvoiceKind] ?? row.kind ?? '', row.credits_number ?? '', row.issue_date ?? '', row.paid_date ?? '',
-            safeText(row.customer), row.booking ?? '',
+            row.customer ?? '', row.booking ?? '',
           ];
           for (const part of parts) record.push(part ? (row[part] ?? '0.00') : '0.00');
           // Booking discounts are taken off before the invoice's amounts are split (the quote's
           // lines are net), so the invoice holds no separate discount (see DEVELOPERS.md).
           record.push('0.00');
           for (const rate of rates) record.push(rate === row.tax_rate_bp ? (row.tax ?? '0.00') : '0.00');
-          record.push(row.total ?? '0.00', scope.currency, safeText(row.how_paid));
+          record.push(row.total ?? '0.00', scope.currency, row.how_paid ?? '');
           return record;
         },
       };

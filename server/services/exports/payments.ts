@@ -1,5 +1,5 @@
-import type { CsvExport, ExportScope, TextRow } from './csv';
-import { centsText, METHOD_LABELS, safeText } from './format';
+import { amountColumn, type CsvExport, type ExportScope, type TextRow } from './csv';
+import { centsText, METHOD_LABELS } from './format';
 
 const TYPE_LABELS: Record<string, string> = {
   payment: 'Payment',
@@ -76,18 +76,18 @@ export const paymentsCsv: CsvExport = {
   async prepare(_client, scope) {
     return {
       header: [
-        'Date', 'Type', 'Method', 'Amount', 'Kept as account credit', 'Currency', 'Reference', 'Card payment id', 'Card charge id', 'Card refund id',
-        'Fee', 'Status', 'Invoices', 'Customer', 'Booking', 'Receipt', 'Note',
+        'Date', 'Type', 'Method', amountColumn('Amount'), amountColumn('Kept as account credit'), 'Currency', 'Reference', 'Card payment id', 'Card charge id', 'Card refund id',
+        amountColumn('Fee'), 'Status', 'Invoices', 'Customer', 'Booking', 'Receipt', 'Note',
       ],
       toRecord(row: TextRow) {
         const invoices = (JSON.parse(row.invoices ?? 'null') as { number: string; amount: string }[] | null) ?? [];
         return [
           row.date ?? '', TYPE_LABELS[row.type ?? ''] ?? row.type ?? '', METHOD_LABELS[row.method ?? ''] ?? row.method ?? '', centsText(row.amount),
-          centsText(row.kept_credit), scope.currency, safeText(row.reference), row.intent ?? '', row.charge ?? '', row.refund_id ?? '',
+          centsText(row.kept_credit), scope.currency, row.reference ?? '', row.intent ?? '', row.charge ?? '', row.refund_id ?? '',
           row.fee == null ? '' : centsText(row.fee),
           STATUS_LABELS[row.status ?? ''] ?? row.status ?? '',
           invoices.map((i) => `${i.number} ${centsText(i.amount)}`).join('; '),
-          safeText(row.customer), row.booking ?? '', row.receipt ?? '', safeText(row.note),
+          row.customer ?? '', row.booking ?? '', row.receipt ?? '', row.note ?? '',
         ];
       },
     };

@@ -8,6 +8,7 @@ import { exportFilename, type ExportKind } from '../../../shared/schemas/exports
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../db';
 import { logger } from '../../logger';
+import { contentDisposition } from '../downloads';
 import { ExportRun, type Organization, type User } from '../../models';
 import { exportPool } from './db';
 
@@ -80,7 +81,7 @@ export async function runExport(
   const filename = exportFilename(kind, from, to);
   res.status(200);
   res.setHeader('Content-Type', CONTENT_TYPES[opts.format]);
-  res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
+  res.setHeader('Content-Disposition', contentDisposition(filename));
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Cache-Control', 'no-store');
   // The history row, so the screen can match a download to its history line.

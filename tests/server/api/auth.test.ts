@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../../server/app';
-import { Session } from '../../../server/models';
+import { Organization, Session, User } from '../../../server/models';
 import { buildCompany, buildUser, TEST_PASSWORD } from '../../factories';
 import { ApiClient, linkToken, uniqueEmail, waitForMail } from '../../support';
 
@@ -17,27 +17,47 @@ describe('POST /api/auth/signup', () => {
     expect(res.body.error.fields.password).toMatch(/at least 10/);
   });
 
-  it('creates a company and its owner, signs in, and sends a welcome mail', async () => {
+  it('202 and a link by e-mail; the link makes the company and its owner, signs in, and sends a welcome mail', async () => {
     const c = await client();
     const email = uniqueEmail('founder');
     const res = await c.post('/api/auth/signup', { organizationName: 'Meadow Canopy Rentals', name: 'Ada Quill', email: email.toUpperCase(), password: 'a-long-password' });
-    expect(res.status).toBe(201);
-    expect(res.body.user).toMatchObject({ email, role: 'owner', name: 'Ada Quill' });
-    expect(res.body.organization.name).toBe('Meadow Canopy Rentals');
-    expect(res.body.areas).toEqual(expect.arrayContaining(['dashboard', 'users', 'settings']));
-    const cookie = ([] as string[]).concat(res.headers['set-cookie']).find((s) => s.startsWith('guyline_session='))!;
+    expect(res.status).toBe(202);
+    expect(res.body.message).toMatch(/Check your e-mail/);
+    // Nothing is made, and nobody signed in, until the link is opened.
+    expect((await c.get('/api/auth/me')).status).toBe(401);
+    expect(await User.count({ where: { email } })).toBe(0);
+
+    const link = await waitForMail(email, { subject: /Finish creating Meadow Canopy Rentals/ });
+    const token = linkToken(link, '/sign-up/confirm');
+    expect((await c.post('/api/auth/signup/confirm', { token: 'x' })).status).toBe(400);
+    const done = await c.post('/api/auth/signup/confirm', { token });
+    expect(done.status).toBe(201);
+    expect(done.body.user).toMatchObject({ email, role: 'owner', name: 'Ada Quill' });
+    expect(done.body.organization.name).toBe('Meadow Canopy Rentals');
+    expect(done.body.areas).toEqual(expect.arrayContaining(['dashboard', 'users', 'settings']));
+    const cookie = ([] as string[]).concat(done.headers['set-cookie']).find((s) => s.startsWith('guyline_session='))!;
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
     expect((await c.get('/api/auth/me')).body.user.email).toBe(email);
     const mail = await waitForMail(email, { subject: /Welcome/ });
     expect(mail.text).toContain('Meadow Canopy Rentals');
+    // The company's signing certificate is made by a job, off the request.
+    let org = await Organization.findByPk(done.body.organization.id);
+    for (let i = 0; i < 100 && !org!.certificatePem; i++) {
+      await new Promise((r) => setTimeout(r, 200));
+      org = await Organization.findByPk(done.body.organization.id);
+    }
+    expect(org!.certificatePem).toMatch(/BEGIN CERTIFICATE/);
   });
 
-  it('409 when the e-mail already has an account', async () => {
+  it('an address with an account gets the same 202, no session, and a note by e-mail instead of a link', async () => {
     const user = await buildUser();
     const res = await (await client()).post('/api/auth/signup', { organizationName: 'Other Co', name: 'B', email: user.email, password: 'a-long-password' });
-    expect(res.status).toBe(409);
-    expect(res.body.error.fields.email).toBeDefined();
+    expect(res.status).toBe(202);
+    expect(res.body.message).toMatch(/Check your e-mail/);
+    expect(([] as string[]).concat(res.headers['set-cookie'] ?? []).some((s) => s.startsWith('guyline_session='))).toBe(false);
+    const note = await waitForMail(user.email, { subject: /tried to sign up/ });
+    expect(note.text).not.toMatch(/sign-up\/confirm/);
   });
 });
 

@@ -82,7 +82,7 @@ describe('issuing documents', () => {
 
 describe('receipts, credit notes and the logo', () => {
   // A 1x1 PNG (PNG signature, IHDR, IDAT, IEND).
-  const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
+  const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da6364f8cf500f00038601805a347d6b0000000049454e44ae426082', 'hex');
 
   it('receipts and credit notes are no longer written free-hand: they come from payments and credits on invoices', async () => {
     const { office, owner, organization } = await buildCompany();

@@ -19,9 +19,10 @@ import { promisify } from 'node:util';
 import { parse } from 'csv-parse/sync';
 import { Op, QueryTypes } from 'sequelize';
 import { describe, expect, inject, it } from 'vitest';
-import { addDays, dateInZone } from '../../../shared/dates';
+import { addDays, dateInZone, zonedTimeToInstant } from '../../../shared/dates';
 import { createApp } from '../../../server/app';
-import { sequelize } from '../../../server/db';
+import { issueInvoice } from '../../../server/commands/invoices';
+import { sequelize, withTransaction } from '../../../server/db';
 import { trialBalance } from '../../../server/ledger/balances';
 import { CardCheckout, Document, ExportRun, Invoice, Payment, Refund, type User } from '../../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../../factories';
@@ -151,10 +152,14 @@ async function buildBooks() {
   expect((await Invoice.findByPk(bDeposit.id))!.status).toBe('partly_paid');
   await pay({ method: 'cash', invoiceId: bDeposit.id, amountCents: 1_000 });
 
-  // Paid last January (a transfer recorded late), 50.00 over and kept as the customer's credit.
+  // Paid last January (a transfer recorded late), 50.00 over and kept as the customer's credit, on
+  // the balance invoice issued the week before (a payment is never received before its invoice).
   const today = dateInZone(new Date(), TZ);
   const lastJanuary = `${Number(today.slice(0, 4)) - 1}-01-15`;
-  const bBalance = await issue(b.id, { kind: 'balance' });
+  const bBalanceDraft = await office.post(`/api/bookings/${b.id}/invoices`, { kind: 'balance' });
+  expect(bBalanceDraft.status).toBe(201);
+  await withTransaction((t) => issueInvoice(c.office, bBalanceDraft.body.id, null, t, { at: zonedTimeToInstant(addDays(lastJanuary, -7), '10:00', TZ), email: false }));
+  const bBalance = (await office.get(`/api/invoices/${bBalanceDraft.body.id}`)).body as { id: string; number: string; totalCents: number };
   await pay({ method: 'transfer', reference: 'Wire 7781', invoiceId: bBalance.id, amountCents: bBalance.totalCents + 5_000, keepExcessAsCredit: true, receivedAt: `${lastJanuary}T18:00:00Z` });
   // A credit note on a paid invoice becomes account credit; part of the credit goes back by check.
   const creditNote = await office.post(`/api/invoices/${aDeposit.id}/credit-notes`, { amountCents: 2_000, reason: 'Goodwill for the late delivery' });
@@ -280,7 +285,7 @@ describe('exports read back to the same numbers as the books', () => {
     // RFC 4180 §2 rules 6-7: a field with a comma and quotes is enclosed in quotes, its quotes doubled.
     expect(bytes.toString('utf8')).toContain('"Cleaning: =Tent top washed, ""sap"" and mud"');
     const { rows } = csvRows(bytes);
-    const issued = await Invoice.findAll({ where: { organizationId: s.organization.id, status: { [Op.notIn]: ['draft', 'void'] } } });
+    const issued = await Invoice.findAll({ where: { organizationId: s.organization.id, status: { [Op.notIn]: ['draft', 'void'] }, issueDate: s.today } });
     expect(new Set(rows.map((r) => r['Invoice number']))).toEqual(new Set(issued.map((i) => i.number)));
     expect(rows.some((r) => r['Invoice number'] === s.invoices.voided.number)).toBe(false);
     expect(rows.filter((r) => r['Invoice number'] === s.invoices.open.number).map((r) => r.Status)).toContain('Open');

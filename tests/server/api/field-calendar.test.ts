@@ -2,7 +2,7 @@ import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../../server/app';
 import { CalendarFeed } from '../../../server/models';
-import { ApiClient } from '../../support';
+import { ApiClient, linkToken, waitForMail } from '../../support';
 import { as as signIn, booking, fieldCompany } from './fieldCompany';
 
 const app = createApp();
@@ -65,5 +65,58 @@ describe('the crew calendar feed (RFC 5545)', () => {
     expect((await crew.delete('/api/field/calendar-feed')).status).toBe(200);
     expect((await new ApiClient(app).get(feedPath(again.body.url))).status).toBe(404);
     expect((await new ApiClient(app).get('/api/field/calendar/not-a-token.ics')).status).toBe(400);
+  });
+});
+
+describe('the feed ends with the person’s access', () => {
+  /** A crew member with a live feed on one reserved booking; the address and a way to read it without a session. */
+  async function liveFeed() {
+    const c = await fieldCompany();
+    const office = await as(c.office);
+    const b = await booking(office, c.customer.id, '2027-07-10', [{ itemId: c.chairs.id, quantity: 20, description: 'White folding chair' }]);
+    await office.agent.put(`/api/field/bookings/${b.id}/crew`).set('X-CSRF-Token', office.csrf).set('X-Forwarded-For', office.ip).send({ userIds: [c.crew.id] });
+    const crewClient = await as(c.crew);
+    const made = await crewClient.post('/api/field/calendar-feed');
+    expect(made.status).toBe(201);
+    const read = async () => (await new ApiClient(app).get(feedPath(made.body.url))).status;
+    expect(await read()).toBe(200);
+    return { ...c, crewClient, read };
+  }
+
+  it('sign out everywhere revokes the feed address', async () => {
+    const f = await liveFeed();
+    expect((await f.crewClient.post('/api/auth/logout-all')).status).toBe(204);
+    expect(await f.read()).toBe(404);
+    expect(await CalendarFeed.count({ where: { userId: f.crew.id, revokedAt: null } })).toBe(0);
+  });
+
+  it('a password reset through the e-mailed link revokes the feed address', async () => {
+    const f = await liveFeed();
+    const stranger = await new ApiClient(app).init();
+    expect((await stranger.post('/api/auth/password-reset/request', { email: f.crew.email })).status).toBe(202);
+    // Asking alone changes nothing: only the confirmed reset does.
+    expect(await f.read()).toBe(200);
+    const token = linkToken(await waitForMail(f.crew.email, { subject: /Reset/ }), '/reset-password');
+    expect((await stranger.post('/api/auth/password-reset/confirm', { token, password: 'a-brand-new-password' })).status).toBe(204);
+    expect(await f.read()).toBe(404);
+  });
+
+  it('a person moved to a role without the calendar loses the feed at once, and gets it back with the role', async () => {
+    const f = await liveFeed();
+    const owner = await as(f.owner);
+    expect((await owner.patch(`/api/users/${f.crew.id}`, { role: 'bookkeeper' })).status).toBe(200);
+    expect(await f.read()).toBe(404);
+    // Nothing was revoked: the rule is read at every request, so the crew role brings it back.
+    expect((await owner.patch(`/api/users/${f.crew.id}`, { role: 'crew' })).status).toBe(200);
+    expect(await f.read()).toBe(200);
+  });
+
+  it('a disabled person’s feed stops, and stays stopped when they are enabled again', async () => {
+    const f = await liveFeed();
+    const owner = await as(f.owner);
+    expect((await owner.patch(`/api/users/${f.crew.id}`, { disabled: true })).status).toBe(200);
+    expect(await f.read()).toBe(404);
+    expect((await owner.patch(`/api/users/${f.crew.id}`, { disabled: false })).status).toBe(200);
+    expect(await f.read()).toBe(404);
   });
 });

@@ -11,7 +11,7 @@ const app = createApp();
 const as = (user: Parameters<typeof signIn>[1]) => signIn(app, user);
 
 // A 1x1 PNG (PNG signature, IHDR, IDAT, IEND; PNG specification, ISO/IEC 15948).
-const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
+const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da6364f8cf500f00038601805a347d6b0000000049454e44ae426082', 'hex');
 // The start of an ELF executable: magic 0x7F "ELF", 64-bit, little-endian (ELF specification, e_ident).
 const ELF = Buffer.concat([Buffer.from('7f454c4602010100000000000000000002003e0001000000', 'hex'), Buffer.alloc(200)]);
 const HTML = Buffer.from('<!DOCTYPE html><html><body><script>document.title = "owned"</script><img src=x onerror=alert(1)></body></html>');
@@ -55,11 +55,14 @@ describe('field photos', () => {
     const office = await as(c.office);
     const a = await booking(office, c.customer.id, '2027-06-12', [{ itemId: c.wall.id, quantity: 4, description: 'Sidewall 7x20' }]);
     const crew = await as(c.crew);
-    // Named .jpg and sent as JPEG, but it is a PNG: it is kept, served and named as what it is.
-    const ok = await upload(crew, a.id, PNG, 'wall <torn>.jpg', { stage: 'damage', lineKey: c.wall.id, caption: 'Torn seam' });
+    // Named .gif and sent as GIF, but it is a PNG: it is read as one, and kept (redrawn as a JPEG) and named as what it is now.
+    const ok = await upload(crew, a.id, PNG, 'wall <torn>.gif', { stage: 'damage', lineKey: c.wall.id, caption: 'Torn seam' }, 'image/gif');
     expect(ok.status).toBe(201);
     const photo = ok.body.photos[0];
-    expect(photo).toMatchObject({ stage: 'damage', lineKey: c.wall.id, caption: 'Torn seam', contentType: 'image/png', size: PNG.length, uploadedBy: c.crew.name });
+    const kept = (await StoredFile.unscoped().findOne({ where: { organizationId: c.organization.id } }))!;
+    expect(photo).toMatchObject({ stage: 'damage', lineKey: c.wall.id, caption: 'Torn seam', contentType: 'image/jpeg', size: kept.data.length, uploadedBy: c.crew.name });
+    // JPEG's start-of-image marker (ITU-T T.81, Annex B.1.1.3: 0xFFD8).
+    expect(kept.data.subarray(0, 2).toString('hex')).toBe('ffd8');
 
     const got = await crew.agent.get(photo.url).buffer(true).parse((r, cb) => {
       const chunks: Buffer[] = [];
@@ -67,11 +70,11 @@ describe('field photos', () => {
       r.on('end', () => cb(null, Buffer.concat(chunks)));
     });
     expect(got.status).toBe(200);
-    expect(got.headers['content-type']).toBe('image/png');
+    expect(got.headers['content-type']).toBe('image/jpeg');
     expect(got.headers['x-content-type-options']).toBe('nosniff');
     expect(got.headers['content-security-policy']).toMatch(/default-src 'none'.*sandbox/);
-    expect(got.headers['content-disposition']).toBe('inline; filename="wall _torn_.png"');
-    expect(Buffer.compare(got.body as Buffer, PNG)).toBe(0);
+    expect(got.headers['content-disposition']).toBe('inline; filename="wall _torn_.jpg"');
+    expect(Buffer.compare(got.body as Buffer, kept.data)).toBe(0);
     // Another company's people do not see it.
     expect((await (await as(other.crew)).get(photo.url)).status).toBe(404);
   });

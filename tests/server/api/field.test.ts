@@ -280,3 +280,28 @@ describe('roles: the crew sees no money', () => {
     }
   });
 });
+
+describe('roles: the crew’s view of the company rules', () => {
+  it('GET /api/organization/rules answers the crew the planning rules without a price, a fee or a tax; the owner and the bookkeeper still get them', async () => {
+    const c = await fieldCompany();
+    const owner = await as(c.owner);
+    // Figures found nowhere else in the rules, so a leak under any name shows.
+    const money = { taxRateBp: 712.5, depositMinCents: 12_345, damageWaiverBp: 1_357, deliveryBands: [{ upToMiles: 15, feeCents: 9_876 }] };
+    const put = await owner.agent.put('/api/organization/rules').set('X-CSRF-Token', owner.csrf).set('X-Forwarded-For', owner.ip).send({ ...money, windLimitMph: 41 });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+
+    const crew = (await (await as(c.crew)).get('/api/organization/rules')).body;
+    expect(crew.error).toBeUndefined();
+    // `can.seePrices` (false here) is what tells the screen the prices were left out.
+    const moneyKeys = [...keysOf(crew)].filter((k) => k !== 'seePrices' && /cents|price|amount|total|value|deposit|tax|invoice|payment|balance|fee|waiver|band/i.test(k));
+    expect(moneyKeys).toEqual([]);
+    for (const n of [712.5, 12_345, 1_357, 9_876]) expect(numbersOf(crew)).not.toContain(n);
+    // What the crew works with is all there.
+    expect(crew).toMatchObject({ windLimitMph: 41, occupiedWindLimitMph: 30, turnaroundHours: 24, permitAreaSqFt: 400, sqFtPerGuest: { banquet: 8 }, can: { update: false, seePrices: false } });
+
+    for (const who of [c.owner, c.bookkeeper]) {
+      const full = (await (await as(who)).get('/api/organization/rules')).body;
+      expect(full).toMatchObject({ ...money, windLimitMph: 41, can: { seePrices: true } });
+    }
+  });
+});

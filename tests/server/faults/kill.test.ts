@@ -116,7 +116,7 @@ describe('SIGKILL while mail goes out and webhooks come in', () => {
 
     // Work for the workers: the mail, and the first half of the payments.
     for (let i = 0; i < MAILS; i++) {
-      await queueMail(`kill-${i}.${process.pid}@example.test`, 'portal-sign-in', { link: `${app.url}/portal/welcome?token=t${i}` });
+      await queueMail(s.organization.id, `kill-${i}.${process.pid}@example.test`, 'portal-sign-in', { companyName: 'Kill test company', link: `${app.url}/portal/welcome?token=t${i}` });
     }
     for (const session of s.sessions.slice(0, PAYMENTS / 2)) await pay(session);
 

@@ -99,7 +99,7 @@ describe('two app processes on one database', () => {
     const MAILS = 40;
     const label = `two-${process.pid}`;
     const jobIds: string[] = [];
-    for (let i = 0; i < MAILS; i++) jobIds.push((await queueMail(`${label}-${i}@example.test`, 'portal-sign-in', { link: `${a.url}/portal/welcome?token=t${i}` }))!);
+    for (let i = 0; i < MAILS; i++) jobIds.push((await queueMail(c.organization.id, `${label}-${i}@example.test`, 'portal-sign-in', { companyName: 'Two apps company', link: `${a.url}/portal/welcome?token=t${i}` }))!);
 
     // Documents and webhook events: four issued invoices (each e-mailed), twenty card payments on
     // them reported by the processor; every event delivered to both processes at the same time.

@@ -57,6 +57,7 @@ const tentLine = (f: F) => ({ itemId: f.tent.id, quantity: 1, unitPriceCents: 90
 const FUZZ: Record<string, Fuzz | Skip> = {
   'POST /api/webhooks/stripe':                  { as: 'anonymous', shape: keys('id', 'type', 'data', 'object', 'created', 'livemode') },
   'POST /api/auth/signup':                      { as: 'anonymous', shape: keys('organizationName', 'name', 'email', 'password'), poison: { email: badEmail } },
+  'POST /api/auth/signup/confirm':              { as: 'anonymous', shape: keys('token') },
   'POST /api/auth/login':                       { as: 'anonymous', shape: keys('email', 'password') },
   'POST /api/auth/logout':                      { skip: 'takes no body (and would end the session)' },
   'POST /api/auth/logout-all':                  { skip: 'takes no body (and would end every session)' },
@@ -100,6 +101,7 @@ const FUZZ: Record<string, Fuzz | Skip> = {
   },
   'POST /api/bookings/:id/invoices':            { as: 'owner', params: id((f) => f.bookings.reserved.id), shape: { kind: true, lines: ['charge', 'description', 'amountCents', 'taxable'] }, base: () => ({ kind: 'additional', lines: [{ charge: 'damage', description: 'Torn sidewall', amountCents: 12_000 }] }) },
   'POST /api/invoices/:id/issue':               { skip: 'takes no body (issues the invoice and its PDF)' },
+  'POST /api/invoices/:id/pay-links/revoke':   { skip: 'takes no body (withdraws the invoice\'s pay links)' },
   'POST /api/invoices/:id/void':                { as: 'owner', params: async (f) => ({ id: await f.fresh.openInvoice() }), shape: keys('reason') },
   'POST /api/invoices/:id/credit-notes':        { as: 'owner', params: id((f) => f.openInvoice.id), shape: keys('amountCents', 'reason'), poison: { amountCents: badAmount } },
   'POST /api/invoices/:id/apply-credit':        { as: 'owner', params: id((f) => f.openInvoice.id), shape: keys('amountCents') },
@@ -108,9 +110,12 @@ const FUZZ: Record<string, Fuzz | Skip> = {
   'POST /api/payments/:id/refunds':             { as: 'owner', params: id((f) => f.payment.id), shape: keys('amountCents', 'reason'), base: () => ({ amountCents: 1, reason: 'Charged twice' }) },
   'POST /api/bookings/:id/security-deposit':    { as: 'owner', params: id((f) => f.bookings.reserved.id), shape: keys('action', 'invoiceId', 'amountCents', 'method', 'reason'), base: (f) => ({ action: 'apply', invoiceId: f.openInvoice.id, amountCents: 100 }) },
   'PUT /api/ledger/accounts/:id':               { as: 'owner', params: id((f) => f.account.id), shape: keys('code', 'name') },
+  // A valid body closes the fixture's books through a day long before anything it posts.
+  'PUT /api/ledger/lock-date':                  { as: 'owner', shape: keys('closedThrough'), base: () => ({ closedThrough: '2001-01-31' }) },
   'POST /api/portal/sign-in':                   { as: 'anonymous', shape: keys('email', 'next'), poison: { email: badEmail } },
   'POST /api/portal/sessions':                  { as: 'anonymous', shape: keys('token') },
   'POST /api/portal/sign-out':                  { skip: 'takes no body' },
+  'POST /api/portal/bookings/:id/sign':         { skip: "takes no body (opens a signing link on the customer's own booking)" },
   'POST /api/invoices/:id/checkout':            { as: 'owner', params: id((f) => f.openInvoice.id), shape: keys('amountCents'), poison: { amountCents: badAmount } },
   'POST /api/pay/:token/checkout':              { as: 'anonymous', params: (f) => ({ token: f.payToken }), shape: keys('amountCents'), poison: { amountCents: badAmount } },
   'POST /api/organization/logo':                { skip: 'multipart upload: its 413 and 415 are checked below' },

@@ -24,7 +24,7 @@ export type Who = (typeof WHO)[number];
 type StaffRole = 'crew' | 'office' | 'bookkeeper' | 'owner';
 
 // A 1x1 PNG (PNG signature, IHDR, IDAT, IEND; PNG specification, ISO/IEC 15948).
-export const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
+export const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da6364f8cf500f00038601805a347d6b0000000049454e44ae426082', 'hex');
 /** The smallest file file-type reads as a PDF: the %PDF- header is what it checks. */
 export const PDF = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n');
 
@@ -195,7 +195,7 @@ export async function securityFixture(app: Express) {
     /** A sign-in link's token, as the e-mail would carry it (the row the sign-in route writes). */
     customerLinkToken: async () => {
       const { token, hash } = newToken();
-      await CustomerSignInToken.create({ email: customerEmail, tokenHash: hash, next: null, expiresAt: new Date(Date.now() + 15 * 60_000) });
+      await CustomerSignInToken.create({ organizationId: org, email: customerEmail, tokenHash: hash, next: null, expiresAt: new Date(Date.now() + 15 * 60_000) });
       return token;
     },
     draftBooking: async () => (await newBooking()).id,

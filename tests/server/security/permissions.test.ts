@@ -69,6 +69,7 @@ const MATRIX: Record<string, Row> = {
 
   // --- staff sign-in ---------------------------------------------------------------------------
   'POST /api/auth/signup':                       row('ok   ok   ok   ok   ok   ok   ok', { fresh: true, body: () => ({ organizationName: 'Matrix Rentals', name: 'New Owner', email: uniqueEmail('signup'), password: 'a long enough password' }) }),
+  'POST /api/auth/signup/confirm':               row('ok   ok   ok   ok   ok   ok   ok', { body: () => ({ token: token43() }), stateOnly: 'a made-up token: 400 invalid_token, whoever asks' }),
   'POST /api/auth/login':                        row('ok   ok   ok   ok   ok   ok   ok', { fresh: true, body: (f) => ({ email: f.loginUser.email, password: TEST_PASSWORD }) }),
   'POST /api/auth/logout':                       row('401  401  ok   ok   ok   ok   ok', { fresh: true }),
   'POST /api/auth/logout-all':                   row('401  401  ok   ok   ok   ok   ok', { fresh: true }),
@@ -136,6 +137,7 @@ const MATRIX: Record<string, Row> = {
   'POST /api/bookings/:id/invoices':             row('401  401  403  ok   403  ok   404', { params: id((f) => f.bookings.reserved.id), body: () => ({ kind: 'additional', lines: [{ charge: 'late_return', description: 'Returned a day late', amountCents: 2_000 }] }) }),
   'POST /api/invoices/:id/issue':                row('401  401  403  ok   403  ok   404', { params: async (f) => ({ id: await f.fresh.draftInvoice() }) }),
   'POST /api/invoices/:id/void':                 row('401  401  403  403  403  ok   404', { params: async (f) => ({ id: await f.fresh.openInvoice() }), body: () => ({ reason: 'Entered twice' }) }),
+  'POST /api/invoices/:id/pay-links/revoke':     row('401  401  403  ok   403  ok   404', { params: async (f) => ({ id: await f.fresh.openInvoice() }) }),
   'POST /api/invoices/:id/credit-notes':         row('401  401  403  ok   403  ok   404', { params: async (f) => ({ id: await f.fresh.openInvoice() }), body: () => ({ amountCents: 100, reason: 'Goodwill' }) }),
   'POST /api/invoices/:id/apply-credit':         row('401  401  403  ok   403  ok   404', { params: id((f) => f.openInvoice.id), body: () => ({ amountCents: 100 }) }),
   'GET /api/customers/:id/credit':               row('401  401  403  ok   ok   ok   404', { params: id((f) => f.customer.id) }),
@@ -150,6 +152,9 @@ const MATRIX: Record<string, Row> = {
   'PUT /api/ledger/accounts/:id':                row('401  401  403  403  403  ok   404', { params: id((f) => f.account.id), body: (f) => ({ code: f.account.code, name: f.account.name }) }),
   'GET /api/customers/:id/statement':            row('401  401  403  ok   ok   ok   404', { params: id((f) => f.customer.id) }),
   'GET /api/ledger/trial-balance':               row('401  401  403  ok   ok   ok   ok', { query: () => ({ at: '2031-12-31' }) }),
+  // Closing the books: the bookkeeper's and the owner's, each for their own company (closed-periods.test.ts).
+  'GET /api/ledger/lock-date':                   row('401  401  403  403  ok   ok   ok'),
+  'PUT /api/ledger/lock-date':                   row('401  401  403  403  ok   ok   ok', { body: () => ({ closedThrough: '2001-01-31' }) }),
 
   // --- the customer's own pages: a staff session is not a customer's -------------------------------
   'POST /api/portal/sign-in':                    row('ok   ok   ok   ok   ok   ok   ok', { body: () => ({ email: uniqueEmail('stranger') }) }),
@@ -158,7 +163,7 @@ const MATRIX: Record<string, Row> = {
   'POST /api/portal/sign-out':                   row('ok   ok   ok   ok   ok   ok   ok', { fresh: true }), // signing out needs no session
   'GET /api/portal/bookings':                    row('401  ok   401  401  401  401  401'),
   'GET /api/portal/bookings/:id':                row('401  ok   401  401  401  401  401', { params: id((f) => f.bookings.reserved.id) }),
-  'GET /api/portal/bookings/:id/sign':           row('401  ok   401  401  401  401  401', { params: id((f) => f.bookings.reserved.id) }),
+  'POST /api/portal/bookings/:id/sign':          row('401  ok   401  401  401  401  401', { params: id((f) => f.bookings.reserved.id) }),
   'GET /api/portal/documents/:id/pdf':           row('401  ok   401  401  401  401  401', { params: id((f) => f.openInvoice.documentId) }),
   // The invoice's own customer, or the office handing over the payment page.
   'POST /api/invoices/:id/checkout':             row('401  ok   403  ok   403  ok   404', { params: id((f) => f.openInvoice.id), body: () => ({}) }),
@@ -256,9 +261,9 @@ const MATRIX: Record<string, Row> = {
   // B's owner naming A's account and booking: 404, as for any record of another company.
   'GET /api/reports/entries':                    row('401  401  403  403  ok   ok   404', { query: (f) => ({ accountIds: f.account.id, bookingId: f.bookings.reserved.id }) }),
 
-  // --- developer views of the local fakes: mounted only with FAKES=on, open to all (never in production) ----
-  'GET /api/dev/mail':                           row('ok   ok   ok   ok   ok   ok   ok'),
-  'DELETE /api/dev/mail':                        row('ok   ok   ok   ok   ok   ok   ok'),
+  // --- the demo's caught mail: mounted only with FAKES=on; a company's owner, that company's mail only ----
+  'GET /api/dev/mail':                           row('401  401  403  403  403  ok   ok'),
+  'DELETE /api/dev/mail':                        row('401  401  403  403  403  ok   ok'),
 };
 
 /** 'ok' for anything that got past the guard; otherwise the status itself. */

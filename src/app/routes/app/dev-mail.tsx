@@ -29,8 +29,9 @@ export default function DevMailRoute() {
         title="Mail inbox"
         description={
           <>
-            A developer page. The mail Guyline sends while it runs locally is caught by a local mail sink instead of reaching anyone;
-            it shows up here. This inbox only exists while the local mail sink runs.
+            The demo's caught mail. While Guyline runs as a demo, the mail it sends for your company (to your customers and your own
+            staff) is caught by a local mail sink instead of reaching anyone, and shows up here for the owner. It holds live sign-in,
+            reset, signing and pay links: treat it like the real mailboxes. This inbox only exists while the local mail sink runs.
           </>
         }
         actions={

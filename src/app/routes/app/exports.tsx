@@ -9,6 +9,8 @@ import { Pagination } from '@/components/ui/pagination';
 import { Spinner } from '@/components/ui/spinner';
 import { errorMessage } from '@/lib/api';
 import { zonedDate } from '@/lib/zoned-time';
+import { lockDateQueryOptions } from '@/features/books/api/get-lock-date';
+import { ClosedBooksPanel } from '@/features/books/components/closed-books-panel';
 import { exportHistoryQueryOptions, useExportHistory } from '@/features/exports/api/get-export-history';
 import { ExportCard } from '@/features/exports/components/export-card';
 import { ExportHistoryTable } from '@/features/exports/components/export-history-table';
@@ -30,6 +32,7 @@ export const clientLoader = (queryClient: QueryClient) => async ({ request }: Lo
   // The company's time zone decides what "today" and "last month" are.
   await queryClient.ensureQueryData(organizationQueryOptions()).catch(() => null);
   void queryClient.prefetchQuery(exportHistoryQueryOptions(pageOf(new URL(request.url).searchParams), PAGE_SIZE));
+  void queryClient.prefetchQuery(lockDateQueryOptions());
   return null;
 };
 
@@ -93,6 +96,8 @@ export default function ExportsRoute() {
           </Alert>
         ) : null}
       </form>
+
+      <ClosedBooksPanel timeZone={timeZone} />
 
       <div className="grid gap-4 lg:grid-cols-2">
         {EXPORT_KINDS.map((kind) => (

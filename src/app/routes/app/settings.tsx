@@ -12,7 +12,8 @@ import { organizationQueryOptions, useOrganization } from '@/features/organizati
 import { OrganizationDetails } from '@/features/organization/components/organization-details';
 import { OrganizationForm } from '@/features/organization/components/organization-form';
 import { LogoPanel } from '@/features/organization/components/logo-panel';
-import { rulesQueryOptions, useRules } from '@/features/organization/api/get-rules';
+import { hasPriceRules, rulesQueryOptions, useRules } from '@/features/organization/api/get-rules';
+import { PlanningRulesDetails } from '@/features/organization/components/planning-rules';
 import { RulesForm } from '@/features/organization/components/rules-form';
 import { requireMe } from '../../guards';
 
@@ -32,6 +33,8 @@ export default function SettingsRoute() {
   const { data: me } = useMe();
   const readsTemplates = me?.user.role !== 'crew';
   const readsMoney = Boolean(me?.areas.includes('invoices'));
+  // The server leaves the prices out of the rules for a role that does not see them.
+  const priceRules = rules.data ? hasPriceRules(rules.data) : readsMoney;
 
   return (
     <>
@@ -91,8 +94,12 @@ export default function SettingsRoute() {
       ) : null}
       <SectionCard
         className="mt-6"
-        title="Pricing and planning rules"
-        description="Tax, deposit, damage waiver, delivery fees, turnaround, permit thresholds and tent sizing: the numbers quotes and the planner use."
+        title={priceRules ? 'Pricing and planning rules' : 'Planning rules'}
+        description={
+          priceRules
+            ? 'Tax, deposit, damage waiver, delivery fees, turnaround, permit thresholds and tent sizing: the numbers quotes and the planner use.'
+            : 'Turnaround, permit thresholds, tent sizing and wind limits: the numbers the planner and the day sheets use.'
+        }
       >
         {rules.isPending ? (
           <PageSpinner label="Loading the rules…" />
@@ -100,8 +107,10 @@ export default function SettingsRoute() {
           <Alert tone="danger" title="The rules could not be loaded.">
             {errorMessage(rules.error)}
           </Alert>
-        ) : (
+        ) : hasPriceRules(rules.data) ? (
           <RulesForm rules={rules.data} />
+        ) : (
+          <PlanningRulesDetails rules={rules.data} />
         )}
       </SectionCard>
     </>

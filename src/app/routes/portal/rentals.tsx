@@ -14,19 +14,25 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
   return null;
 };
 
-/** "Your rentals": every booking the customer has, with whichever companies have their address. */
+/**
+ * "Your rentals": the customer's bookings with the one company this session belongs to. A
+ * customer of two companies signs in to each with its own link.
+ */
 export default function PortalRentalsRoute() {
   const bookings = usePortalBookings();
   const me = usePortalMe();
   const list = bookings.data?.data ?? [];
-  const companies = new Map(list.map((b) => [b.company.id, b.company]));
-  // One company: its name and contact head the page. Several: each has its own heading below.
-  const company = companies.size === 1 ? [...companies.values()][0] : null;
+  const company = me.data?.company ?? null;
   const needing = list.filter((b) => b.needsAction).length;
 
   return (
     <PortalLayout title="Your rentals" company={company} signedIn>
       {me.data?.name ? <p className="-mt-2 mb-4 text-canvas-700">Hello, {me.data.name}.</p> : null}
+      {company ? (
+        <p className="-mt-2 mb-4 text-sm text-canvas-700">
+          These are your rentals with {company.name}. Rent from another company too? Its rentals open with its own sign-in link.
+        </p>
+      ) : null}
       {bookings.isPending ? (
         <PageSpinner label="Loading your rentals…" />
       ) : bookings.isError ? (
@@ -34,8 +40,8 @@ export default function PortalRentalsRoute() {
       ) : list.length === 0 ? (
         <EmptyState title="No rentals yet">
           <p>
-            Nothing is booked under {me.data?.email ? <strong className="break-all">{me.data.email}</strong> : 'this address'}. If you have booked with a
-            rental company, ask them which e-mail address they have for you.
+            Nothing is booked with {company?.name ?? 'this company'} under {me.data?.email ? <strong className="break-all">{me.data.email}</strong> : 'this address'}. If you have booked with them,
+            ask which e-mail address they have for you.
           </p>
         </EmptyState>
       ) : (

@@ -1,11 +1,10 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { MeResponse, SignupRequest } from '@shared/schemas/auth';
+import { useMutation } from '@tanstack/react-query';
+import type { SignupAccepted, SignupRequest } from '@shared/schemas/auth';
 import { api } from '@/lib/api';
-import { rememberSignedIn } from './get-me';
 
-export const signup = (body: SignupRequest) => api.post<MeResponse>('/api/auth/signup', body);
+/** Asks for a company: the answer is the same for every address, and the e-mail has the link. */
+export const signup = (body: SignupRequest) => api.post<SignupAccepted>('/api/auth/signup', body);
 
 export function useSignup() {
-  const queryClient = useQueryClient();
-  return useMutation({ mutationFn: signup, onSuccess: (me) => rememberSignedIn(queryClient, me) });
+  return useMutation({ mutationFn: signup });
 }

@@ -1,4 +1,4 @@
-import { SignupRequest, type MeResponse } from '@shared/schemas/auth';
+import { PASSWORD_MAX_BYTES, SignupRequest, type SignupAccepted } from '@shared/schemas/auth';
 import { PASSWORD_MIN_LENGTH } from '@shared/types';
 import { Button } from '@/components/ui/button';
 import { FormMessage } from '@/components/ui/alert';
@@ -6,13 +6,13 @@ import { TextField } from '@/components/ui/text-field';
 import { useZodForm } from '@/lib/form';
 import { useSignup } from '../api/signup';
 
-export function SignUpForm({ onSuccess }: { onSuccess: (me: MeResponse) => void }) {
+export function SignUpForm({ onSuccess }: { onSuccess: (answer: SignupAccepted, email: string) => void }) {
   const form = useZodForm(SignupRequest, { organizationName: '', name: '', email: '', password: '' });
   const signup = useSignup();
 
   const submit = form.handleSubmit((data) => {
     form.setFormError(null);
-    signup.mutate(data, { onSuccess, onError: form.showError });
+    signup.mutate(data, { onSuccess: (answer) => onSuccess(answer, data.email), onError: form.showError });
   });
 
   return (
@@ -26,11 +26,11 @@ export function SignUpForm({ onSuccess }: { onSuccess: (me: MeResponse) => void 
         type="password"
         autoComplete="new-password"
         required
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters. A few unrelated words work well.`}
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters, at most ${PASSWORD_MAX_BYTES} plain letters. A few unrelated words work well.`}
         {...form.field('password')}
       />
       <Button type="submit" isLoading={signup.isPending} className="w-full sm:w-auto">
-        {signup.isPending ? 'Creating account…' : 'Create account'}
+        {signup.isPending ? 'Sending…' : 'Create account'}
       </Button>
     </form>
   );

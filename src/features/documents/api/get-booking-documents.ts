@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ListResponse } from '@shared/schemas/common';
-import type { DocumentRow } from '@shared/schemas/documents';
+import type { BookingDocumentList, DocumentRow } from '@shared/schemas/documents';
 import { api } from '@/lib/api';
 
-/** Every document of a booking, every kind and version, newest first. */
+/** Every document of a booking, every kind and version, newest first, and where its agreement stands. */
 export const getBookingDocuments = (bookingId: string, signal?: AbortSignal) =>
-  api.get<ListResponse<DocumentRow>>(`/api/bookings/${encodeURIComponent(bookingId)}/documents`, { signal });
+  api.get<BookingDocumentList>(`/api/bookings/${encodeURIComponent(bookingId)}/documents`, { signal });
 
 export const documentsBaseKey = ['documents'] as const;
 

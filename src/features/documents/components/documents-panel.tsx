@@ -106,6 +106,13 @@ export function DocumentsPanel({ booking, timeZone, canIssue, dirty, onChanged }
         </Alert>
       ) : null}
 
+      {documents.data?.agreement.state === 'changed_since_signed' ? (
+        <Alert tone="warning" title="Changed since signed">
+          The customer signed {documents.data.agreement.lastSignedNumber}; the booking changed after that, so {documents.data.agreement.currentNumber} needs
+          their signature. Send it for signature below: the next invoice waits until it is signed.
+        </Alert>
+      ) : null}
+
       {documents.isPending ? (
         <Spinner className="text-canvas-600" label="Loading documents…" />
       ) : documents.isError ? (

@@ -1,6 +1,7 @@
-import { useRef } from 'react';
+import { useMemo, useRef } from 'react';
+import { addDays, dateInZone } from '@shared/dates';
 import { formatMoney } from '@shared/money';
-import { RecordPaymentRequest, type InvoiceRow, type PaymentRow } from '@shared/schemas/invoices';
+import { latestIssueDate, recordPaymentRequestFor, type InvoiceRow, type PaymentRow } from '@shared/schemas/invoices';
 import { FormMessage } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Checkbox } from '@/components/ui/checkbox';
@@ -10,7 +11,7 @@ import { TextField } from '@/components/ui/text-field';
 import { collector, parseDollars } from '@/lib/amounts';
 import { ApiError, errorMessage } from '@/lib/api';
 import { useZodForm, type FieldErrors } from '@/lib/form';
-import { isoToZonedInput, zonedInputToIso } from '@/lib/zoned-time';
+import { formatCalendarDate, isoToZonedInput, zonedInputToIso } from '@/lib/zoned-time';
 import { useRecordPayment } from '../api/record-payment';
 import { invoiceNumber, offlineMethodOptions } from './invoice-labels';
 
@@ -91,7 +92,15 @@ function PaymentForm({ invoices, split, timeZone, onDone, onCancel, record }: Pa
   const initial: Values = { method: '', receivedAt: isoToZonedInput(new Date().toISOString(), timeZone), reference: '', [KEEP]: '' };
   for (const invoice of invoices) initial[amountKey(invoice, split)] = '';
   const sent = useRef<string[]>([]);
-  const form = useZodForm(RecordPaymentRequest, initial, {
+  const today = dateInZone(new Date(), timeZone);
+  // The request's schema with the received day's bounds (the invoices' issue day through tomorrow),
+  // as the server checks them.
+  const schema = useMemo(
+    () => recordPaymentRequestFor({ issueDateOf: (id) => invoices.find((i) => i.id === id)?.issueDate, today, timeZone }),
+    [invoices, today, timeZone],
+  );
+  const earliest = latestIssueDate(invoices.map((i) => i.issueDate));
+  const form = useZodForm(schema, initial, {
     toInput: (v) => {
       const r = toRequest(v, invoices, split, timeZone);
       return { input: r.input, errors: r.errors };
@@ -155,7 +164,13 @@ function PaymentForm({ invoices, split, timeZone, onDone, onCancel, record }: Pa
               }}
             />
           ) : null}
-          <TextField label="Received at" type="datetime-local" required hint={`On your company’s clock (${timeZone.replaceAll('_', ' ')}).`} {...form.field('receivedAt')} />
+          <TextField
+            label="Received at"
+            type="datetime-local"
+            required
+            hint={`On your company’s clock (${timeZone.replaceAll('_', ' ')}), ${split || !earliest ? '' : `from the issue day, ${formatCalendarDate(earliest)}, `}through tomorrow, ${formatCalendarDate(addDays(today, 1))}.`}
+            {...form.field('receivedAt')}
+          />
           <TextField label="Reference" autoComplete="off" maxLength={80} hint="A check number or transfer reference; optional." {...form.field('reference')} />
         </div>
         {split ? (

@@ -3,6 +3,7 @@ import type { PortalBooking } from '@shared/schemas/portal';
 import { buttonClasses } from '@/components/ui/button';
 import { SectionCard } from '@/components/ui/card';
 import { DocumentLink } from './document-link';
+import { SignButton } from './sign-button';
 import { formatDay, formatSpan, money, zoneName } from './labels';
 
 function Row({ term, children }: { term: string; children: ReactNode }) {
@@ -59,10 +60,18 @@ export function AgreementSection({ booking }: { booking: PortalBooking }) {
     <SectionCard title="Rental agreement">
       {a.state === 'awaiting' ? (
         <>
-          <p className="text-canvas-800">Your rental agreement {a.documentNumber} is ready for you to read and sign. It takes a few minutes.</p>
-          <a className={buttonClasses('primary', 'md', 'mt-4 w-full sm:w-auto')} href={a.signUrl}>
-            Read and sign
-          </a>
+          {a.changedSinceSigned ? (
+            <>
+              <p className="text-canvas-800">
+                Your booking changed after you signed agreement {a.changedSinceSigned.documentNumber}, so that signature no longer covers it. Please read and
+                sign the new version, {a.documentNumber}.
+              </p>
+              <DocumentLink className="mt-3" documentId={a.changedSinceSigned.documentId} label={`What you signed before (${a.changedSinceSigned.documentNumber}, PDF)`} />
+            </>
+          ) : (
+            <p className="text-canvas-800">Your rental agreement {a.documentNumber} is ready for you to read and sign. It takes a few minutes.</p>
+          )}
+          <SignButton className="mt-4 block" signUrl={a.signUrl} />
         </>
       ) : a.state === 'signed' ? (
         <>
@@ -118,10 +127,8 @@ export function ToDo({ booking }: { booking: PortalBooking }) {
       <ul className="mt-2 space-y-2 text-canvas-900">
         {sign ? (
           <li className="flex flex-wrap items-center justify-between gap-2">
-            <span>Sign your rental agreement.</span>
-            <a className={buttonClasses('primary', 'sm')} href={sign.signUrl}>
-              Read and sign
-            </a>
+            <span>{sign.changedSinceSigned ? 'Your booking changed since you signed: sign the new version of your agreement.' : 'Sign your rental agreement.'}</span>
+            <SignButton size="sm" signUrl={sign.signUrl} />
           </li>
         ) : null}
         {due ? (

@@ -10,20 +10,25 @@ function companyOf(error: unknown): Pick<PortalCompany, 'name' | 'phone' | 'emai
   return c?.name ? { name: c.name, phone: c.phone ?? '', email: c.email ?? '' } : null;
 }
 
-/** A pay link that can't be used; signing in by e-mail shows the same invoices, so that is the way on. */
+/**
+ * A pay link that can't be used. An ended one (its time is up, or the company withdrew it) comes
+ * with the server's reason, which tells the customer to ask the company for a new link; signing in
+ * by e-mail shows the same invoices, so that is the other way on.
+ */
 export function PayLinkProblem({ error }: { error: unknown }) {
-  const expired = isApiError(error) && (error.status === 410 || /expired/.test(error.code));
+  const ended = isApiError(error) && (error.status === 410 || /expired/.test(error.code));
+  const company = companyOf(error);
   return (
     <LinkProblem
-      title={expired ? 'This pay link has expired' : 'This pay link doesn’t work'}
+      title={ended ? 'This pay link no longer works' : 'This pay link doesn’t work'}
       // An unknown link gets our own words; an ended one, the server's reason.
-      message={expired && isApiError(error) ? error.message : null}
+      message={ended && isApiError(error) ? error.message : null}
       advice={
-        expired
-          ? 'Pay links work for a limited time. Sign in with your e-mail address to see what you owe and pay it there.'
+        ended
+          ? `Pay links work for a limited time, and the company can withdraw one. A new link from ${company?.name ?? 'the company'} works as before.`
           : 'Check that the whole address from the e-mail is in your browser. You can also sign in with your e-mail address to see what you owe and pay it.'
       }
-      company={companyOf(error)}
+      company={company}
       actionLabel="Sign in to your rentals"
     />
   );

@@ -40,7 +40,8 @@ export function SignInForm({ next }: { next?: string }) {
           Check your e-mail
         </h2>
         <p className="text-canvas-800">
-          A sign-in link is on its way to <strong className="break-all">{sentTo}</strong>. It works once, for {LINK_MINUTES} minutes.
+          A sign-in link is on its way to <strong className="break-all">{sentTo}</strong>. It works once, for {LINK_MINUTES} minutes. If you rent from more than
+          one company, each sends its own link, and each opens that company's rentals.
         </p>
         <p className="text-sm text-canvas-700">
           Nothing after a few minutes? Look in your spam or junk folder. If the rental company has a different address for you, try that one: links only go to

@@ -13,7 +13,9 @@ export function useEditorData() {
     ready: Boolean(items.data && rules.data && organization.data),
     error: items.error ?? rules.error ?? organization.error,
     items: (items.data?.data ?? []) as ItemRow[],
-    rules: (rules.data ?? DEFAULT_RULES) as CompanyRules,
+    // A role that sees no prices gets the planning rules only; its editor shows no prices and
+    // works out no quote, so the defaults standing in for the rest are never read.
+    rules: { ...DEFAULT_RULES, ...rules.data } as CompanyRules,
     timeZone: organization.data?.timeZone ?? 'UTC',
     currency: organization.data?.currency ?? 'USD',
   };

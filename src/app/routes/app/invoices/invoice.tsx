@@ -307,9 +307,9 @@ function InvoicePage({ id }: { id: string }) {
           <SectionCard title="PDF">
             <InvoicePdf invoice={i} />
           </SectionCard>
-          {i.payUrl ? (
+          {i.payUrl || i.can.revokePayLink ? (
             <SectionCard title="Pay by card">
-              <PayLink url={i.payUrl} number={i.number} />
+              <PayLink invoice={i} timeZone={timeZone} />
             </SectionCard>
           ) : null}
         </div>

@@ -37,6 +37,8 @@ function describe(entry: BookingHistoryEntry): string {
       return `E-mailed ${documentOf(d)}${to(d)}`;
     case 'document.send_failed':
       return `Could not e-mail ${documentOf(d)}${to(d)}${typeof d.error === 'string' && d.error ? `: ${d.error}` : ''}`;
+    case 'invoice.pay_links_revoked':
+      return `Withdrew the pay links of invoice ${typeof d.number === 'string' ? d.number : ''}`.trimEnd();
     default:
       return entry.action.replace(/^(booking|document)\./, '').replaceAll('_', ' ');
   }
