@@ -15,6 +15,9 @@ export function DocumentPreview({ html, label }: { html: string; label: string }
     <div
       role="document"
       aria-label={label}
+      // A scrolling region with nothing focusable inside (values no longer become links) must
+      // take the focus itself, so keyboard users can scroll it (axe scrollable-region-focusable).
+      tabIndex={0}
       className="document-preview max-h-[75vh] overflow-y-auto rounded-md border border-canvas-300 bg-white px-5 py-6 shadow-inner sm:px-8"
       // Sanitized on the server (sanitize-html: no scripts, no event handlers, no outside images).
       dangerouslySetInnerHTML={{ __html: safe }}
