@@ -1,8 +1,3 @@
-import { execFile } from 'node:child_process';
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
-import { promisify } from 'node:util';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../../server/app';
@@ -16,10 +11,10 @@ import { PHOTO_MAX_BYTES } from '../../../shared/schemas/field';
 import { uniqueEmail, type ApiClient } from '../../support';
 import { ApiClient as Client } from '../../support';
 import { as as signIn, booking, fieldCompany } from './fieldCompany';
+import { pdfImages } from '../documents/pdfTools';
 
 const app = createApp();
 const as = (user: Parameters<typeof signIn>[1]) => signIn(app, user);
-const run = promisify(execFile);
 
 const image = (width: number, height: number, channels: 3 | 4 = 4) =>
   sharp({ create: { width, height, channels, background: { r: 47, g: 93, b: 80, alpha: 0.6 } } });
@@ -30,22 +25,6 @@ const sizeOf = async (bytes: Buffer) => {
   return [m.format, m.width, m.height];
 };
 
-/** The images in a PDF as poppler's pdfimages(1) lists them: page, type (image/smask), width, height, object number. */
-async function pdfImages(pdf: Buffer) {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'guyline-img-'));
-  const file = path.join(dir, 'document.pdf');
-  fs.writeFileSync(file, pdf);
-  try {
-    const { stdout } = await run('/usr/bin/pdfimages', ['-list', file]);
-    // Columns: page num type width height color comp bpc enc interp object ID ...
-    return stdout.split('\n').slice(2).filter((l) => l.trim()).map((l) => {
-      const c = l.trim().split(/\s+/);
-      return { page: Number(c[0]), type: c[2], width: Number(c[3]), height: Number(c[4]), object: Number(c[10]) };
-    });
-  } finally {
-    fs.rmSync(dir, { recursive: true, force: true });
-  }
-}
 
 // One colour compresses to almost nothing: a small file holding 64 million pixels, with
 // transparency, which pdfkit would decode in JavaScript (the issue: 249 KB, 18.7 s, 1 GB).

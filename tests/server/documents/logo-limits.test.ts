@@ -1,31 +1,8 @@
-import { execFile } from 'node:child_process';
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
-import { promisify } from 'node:util';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { LOGO_MAX_PIXELS, renderPdf } from '../../../server/documents/pdf';
 import { organization } from './fixtures';
-import { flat, pdfjsText } from './pdfTools';
-
-const run = promisify(execFile);
-
-/** Image XObjects per page as poppler's pdfimages(1) lists them: [page, type, width, height, object]. */
-async function pdfImages(pdf: Buffer) {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'guyline-img-'));
-  const file = path.join(dir, 'document.pdf');
-  fs.writeFileSync(file, pdf);
-  try {
-    const { stdout } = await run('/usr/bin/pdfimages', ['-list', file]);
-    return stdout.split('\n').slice(2).filter((l) => l.trim()).map((l) => {
-      const c = l.trim().split(/\s+/);
-      return { page: Number(c[0]), type: c[2], width: Number(c[3]), height: Number(c[4]), object: Number(c[10]) };
-    });
-  } finally {
-    fs.rmSync(dir, { recursive: true, force: true });
-  }
-}
+import { flat, pdfImages, pdfjsText } from './pdfTools';
 
 // Three pages of text, so the header (and its logo) is drawn three times.
 const markdown = Array.from({ length: 120 }, (_, i) => `Paragraph ${i + 1}: the tent goes up on Friday and comes down on Monday.`).join('\n\n');

@@ -10,6 +10,23 @@ import { promisify } from 'node:util';
 
 const run = promisify(execFile);
 
+/** The images in a PDF as poppler's pdfimages(1) lists them: page, type (image/smask), width, height, object number. */
+export async function pdfImages(pdf: Buffer) {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'guyline-img-'));
+  const file = path.join(dir, 'document.pdf');
+  fs.writeFileSync(file, pdf);
+  try {
+    const { stdout } = await run('/usr/bin/pdfimages', ['-list', file]);
+    // Columns: page num type width height color comp bpc enc interp object ID ...
+    return stdout.split('\n').slice(2).filter((l) => l.trim()).map((l) => {
+      const c = l.trim().split(/\s+/);
+      return { page: Number(c[0]), type: c[2], width: Number(c[3]), height: Number(c[4]), object: Number(c[10]) };
+    });
+  } finally {
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
+
 async function withFile<T>(pdf: Buffer, fn: (file: string) => Promise<T>): Promise<T> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'guyline-pdf-'));
   const file = path.join(dir, 'document.pdf');
