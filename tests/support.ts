@@ -43,7 +43,8 @@ export class ApiClient {
     this.csrfOverride = value;
   }
 
-  constructor(app: Express, opts: { ip?: string } = {}) {
+  /** `app` is an Express app in this process, or the URL of a running server (the demo's, for demo sign-ins). */
+  constructor(app: Express | string, opts: { ip?: string } = {}) {
     this.agent = request.agent(app);
     this.ip = opts.ip ?? uniqueIp();
   }

@@ -1,6 +1,5 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
 import { Booking, FieldPhoto, Invoice, Organization, ReturnCheck, User } from '../../server/models';
 import { DEMO_PASSWORD } from '../../server/seed/demo';
 import { bookingBody, buildCustomer, buildItem } from '../factories';
@@ -39,7 +38,8 @@ describe('a crew member runs a stop from a phone', () => {
     const customer = await buildCustomer(org.id, { name: 'Juniper Hollis', phone: '555-0144' });
     const wall = await buildItem(org.id, { name: 'Sidewall 7x20 (field test)', kind: 'sidewall', sectionLengthFt: 20, heightFt: 7, quantityOwned: 8, rentalPriceCents: 2_500, replacementValueCents: 35_000 });
     const chairs = await buildItem(org.id, { name: 'Folding chair (field test)', kind: 'chair', quantityOwned: 100, rentalPriceCents: 200, replacementValueCents: 2_400 });
-    const office = await (await new ApiClient(createApp()).init()).login('office@demo.test', DEMO_PASSWORD);
+    // The demo password signs in only on the demo server (the one the browser uses), not an app made here.
+    const office = await (await new ApiClient(appUrl()).init()).login('office@demo.test', DEMO_PASSWORD);
     const created = await office.post('/api/bookings', bookingBody(customer.id, '2028-03-18', [
       { itemId: wall.id, quantity: 4, description: 'Sidewall 7x20 (field test)', unitPriceCents: 2_500 },
       { itemId: chairs.id, quantity: 50, description: 'Folding chair (field test)', unitPriceCents: 200 },

@@ -289,7 +289,7 @@ describe('a customer opens the agreement to sign from their pages', () => {
     const page = await context.newPage();
     await signInByMail(page, s.email, `/portal/bookings/${s.booking.id}`);
     await page.getByRole('heading', { level: 1, name: `Booking ${s.booking.reference}` }).waitFor();
-    await page.goto(`${appUrl()}/portal/bookings`);
+    await page.goto(`${appUrl()}/portal`);
     await page.getByText(`These are your rentals with ${s.company.organization.name}.`).waitFor();
     await page.goto(`${appUrl()}/portal/bookings/${s.booking.id}`);
     await page.getByRole('heading', { level: 1, name: `Booking ${s.booking.reference}` }).waitFor();

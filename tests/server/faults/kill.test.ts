@@ -176,7 +176,7 @@ describe('SIGKILL while mail goes out and webhooks come in', () => {
     const caught = await caughtMail(sink.httpUrl);
     const counts = countByRecipientAndSubject(caught);
     for (let i = 0; i < MAILS; i++) {
-      expect(counts.get(`kill-${i}.${process.pid}@example.test | Your sign-in link for your rentals`), `mail ${i}`).toBeGreaterThanOrEqual(1);
+      expect(counts.get(`kill-${i}.${process.pid}@example.test | Your sign-in link for your rentals with Kill test company`), `mail ${i}`).toBeGreaterThanOrEqual(1);
     }
     const receipts = caught.filter((m) => /^Receipt /.test(m.subject));
     expect(new Set(receipts.map((m) => m.subject)).size).toBe(PAYMENTS);
