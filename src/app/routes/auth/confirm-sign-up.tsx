@@ -1,5 +1,4 @@
-import { useEffect, useRef } from 'react';
-import { Link, useNavigate, useSearchParams } from 'react-router';
+import { Link, useNavigate } from 'react-router';
 import { AuthLayout } from '@/components/layouts/auth-layout';
 import { Alert } from '@/components/ui/alert';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -7,8 +6,7 @@ import { PageSpinner } from '@/components/ui/spinner';
 import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
 import { useConfirmSignup } from '@/features/auth/api/confirm-signup';
-
-const TOKEN_MIN = 20;
+import { useLinkToken } from '@/lib/use-link-token';
 
 function LinkProblem({ title, message, to, action }: { title: string; message: string; to: string; action: string }) {
   return (
@@ -21,27 +19,15 @@ function LinkProblem({ title, message, to, action }: { title: string; message: s
   );
 }
 
-/**
- * Where the e-mailed sign-up link lands. It trades the token for the company with a POST, so mail
- * scanners that open links do not use it up, then goes into the app as the new owner.
- */
+/** Where the e-mailed sign-up link lands: trades the token for the company, then opens the app as its owner. */
 export default function ConfirmSignUpRoute() {
-  const [search] = useSearchParams();
-  const token = search.get('token') ?? '';
   const navigate = useNavigate();
   const confirm = useConfirmSignup();
-  const fired = useRef(false);
+  const { complete, start } = useLinkToken((token) =>
+    confirm.mutate({ token }, { onSuccess: () => void navigate(paths.app.root.getHref(), { replace: true }) }),
+  );
 
-  const start = () => confirm.mutate({ token }, { onSuccess: () => void navigate(paths.app.root.getHref(), { replace: true }) });
-
-  useEffect(() => {
-    if (fired.current || token.length < TOKEN_MIN) return;
-    fired.current = true;
-    start();
-    // Once per page load (React runs effects twice in development); `start` only closes over the token.
-  }, [token]);
-
-  if (token.length < TOKEN_MIN) {
+  if (!complete) {
     return <LinkProblem title="This link is incomplete" message="Open the whole link from the e-mail, or sign up again." to={paths.auth.signUp.getHref()} action="Sign up again" />;
   }
   if (confirm.isError) {

@@ -1,18 +1,16 @@
-import { useEffect, useRef } from 'react';
-import { useNavigate, useSearchParams } from 'react-router';
+import { useNavigate } from 'react-router';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';
 import { paths } from '@/config/paths';
 import { errorMessage, isApiError } from '@/lib/api';
+import { useLinkToken } from '@/lib/use-link-token';
 import { useStartSession } from '@/features/portal/api/start-session';
 import { portalNext } from '@/features/portal/customer-pages';
 import { LinkProblem } from '@/features/portal/components/link-problem';
 import { PortalLayout } from '@/features/portal/components/portal-layout';
 
 export { PortalRouteError as ErrorBoundary } from '@/features/portal/components/portal-route-error';
-
-const TOKEN_MIN = 20;
 
 /** A dead link, by what the server said about it (404 unknown, 410 expired or used, 400 incomplete). */
 function linkTitle(error: unknown): { title: string; advice: string } | null {
@@ -26,30 +24,17 @@ function linkTitle(error: unknown): { title: string; advice: string } | null {
   return null;
 }
 
-/**
- * Where the e-mailed sign-in link lands. It trades the token for a session with a POST, so mail
- * scanners that open links do not use it up, then goes on to where the link was meant to go.
- */
+/** Where the e-mailed sign-in link lands: trades the token for a session, then goes where the link was meant to go. */
 export default function PortalWelcomeRoute() {
-  const [search] = useSearchParams();
-  const token = search.get('token') ?? '';
   const navigate = useNavigate();
   const session = useStartSession();
-  const fired = useRef(false);
-
-  const start = () =>
+  const { complete, start } = useLinkToken((token) =>
     session.mutate(token, {
       onSuccess: (me) => void navigate(portalNext(me.next) ?? paths.portal.root.getHref(), { replace: true }),
-    });
+    }),
+  );
 
-  useEffect(() => {
-    if (fired.current || token.length < TOKEN_MIN) return;
-    fired.current = true;
-    start();
-    // Once per page load (React runs effects twice in development); `start` only closes over the token.
-  }, [token]);
-
-  if (token.length < TOKEN_MIN) {
+  if (!complete) {
     return <LinkProblem title="This sign-in link is incomplete" advice="Open the whole link from the e-mail, or ask for a new one." />;
   }
   if (session.isError) {
