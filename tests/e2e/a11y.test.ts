@@ -5,28 +5,22 @@
  * WCAG 2.0/2.1 A and AA rules and its best practices.
  */
 import AxeBuilder from '@axe-core/playwright';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import type { User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient, linkToken, uniqueEmail, uniqueIp, waitForMail } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 const LAPTOP = { viewport: { width: 1280, height: 900 } };
 // A phone in portrait (CSS pixels), with its own client address so rate limits never cross tests.
-const phone = () => browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, extraHTTPHeaders: { 'X-Forwarded-For': uniqueIp() } });
+const phone = () => browser().newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, extraHTTPHeaders: { 'X-Forwarded-For': uniqueIp() } });
 
 /** One company with a reserved booking that has an agreement out for signature, an issued deposit invoice with a payment, and crew on it. */
 async function companyWithABooking() {
@@ -99,7 +93,7 @@ async function checkScreens(context: BrowserContext, screens: [string, string][]
 
 describe('axe on every main screen', () => {
   it('the signed-out pages and the office screens on a laptop', { timeout: 240_000 }, async () => {
-    const context = await browser.newContext(LAPTOP);
+    const context = await browser().newContext(LAPTOP);
     const found = await checkScreens(context, [
       ['Sign-in', '/sign-in'],
       ['Sign-up', '/sign-up'],

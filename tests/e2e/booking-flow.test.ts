@@ -1,20 +1,13 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Booking } from '../../server/models';
 import { DEMO_PASSWORD } from '../../server/seed/demo';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe('the office takes an enquiry, sizes it, prices it and reserves it', () => {
   it('from a new customer to a reserved booking in the browser', { timeout: 90_000 }, async () => {
-    const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const page = await context.newPage();
     await signIn(page, 'office@demo.test', DEMO_PASSWORD);
     await page.goto(`${appUrl()}/app/bookings/new`);

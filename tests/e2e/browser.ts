@@ -1,5 +1,5 @@
 import { chromium, type Browser, type Page } from 'playwright-core';
-import { inject } from 'vitest';
+import { afterAll, beforeAll, inject } from 'vitest';
 
 /** Debian's Chromium, headless, with the flags that work on these machines; never a downloaded browser. */
 export function launchBrowser(): Promise<Browser> {
@@ -21,4 +21,22 @@ export async function signIn(page: Page, email: string, password: string) {
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('navigation', { name: 'Main' }).waitFor();
+}
+
+/**
+ * One Chromium for a test file: launched before its tests, closed after them. Call at the top of
+ * the file; the getter answers the running browser inside a test.
+ */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error('The browser is not running: call sharedBrowser() at the top of the test file.');
+    return browser;
+  };
 }

@@ -4,8 +4,7 @@
  * dialog refuses a received day before the invoice's issue day and one in the closed period,
  * naming the day, with what was typed kept.
  */
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { addDays, dateInZone, zonedTimeToInstant } from '../../shared/dates';
 import { createApp } from '../../server/app';
 import { issueInvoice } from '../../server/commands/invoices';
@@ -13,7 +12,7 @@ import { withTransaction } from '../../server/db';
 import { type User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const TZ = 'America/Chicago';
@@ -21,13 +20,7 @@ const as = async (user: User) => (await new ApiClient(app).init()).login(user.em
 /** "Jun 12, 2027", as the screen writes a calendar day. */
 const shown = (day: string) => new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${day}T12:00:00Z`));
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe('closed books', () => {
   it('the bookkeeper closes the books through a day with a confirm; the office cannot then date a payment in it', { timeout: 180_000 }, async () => {
@@ -42,7 +35,7 @@ describe('closed books', () => {
     await withTransaction((t) => issueInvoice(company.office, draft.id, null, t, { at: zonedTimeToInstant(issuedOn, '10:00', TZ), email: false }));
     const closedThrough = addDays(t0, -5);
 
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signIn(page, company.bookkeeper.email, TEST_PASSWORD);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Exports' }).click();
@@ -74,7 +67,7 @@ describe('closed books', () => {
     await context.close();
 
     // The office records a payment on the invoice: before its issue day, then in the closed period.
-    const officeContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const officeContext = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const officePage = await officeContext.newPage();
     await signIn(officePage, company.office.email, TEST_PASSWORD);
     await officePage.goto(`${appUrl()}/app/invoices/${draft.id}`);

@@ -1,19 +1,12 @@
 import { createHash } from 'node:crypto';
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Booking, Customer, Document, Organization } from '../../server/models';
 import { DEMO_PASSWORD } from '../../server/seed/demo';
 import { readFile } from '../../server/services/storage';
 import { waitForMail } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe('the office issues a rental agreement and e-mails it', () => {
   it('creates the agreement on a booking, previews it and sends it; the customer gets the stored PDF', { timeout: 90_000 }, async () => {
@@ -24,7 +17,7 @@ describe('the office issues a rental agreement and e-mails it', () => {
       include: [{ model: Customer, as: 'customer' }],
       order: [['eventStart', 'ASC']],
     })) as Booking & { customer: Customer };
-    const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const page = await context.newPage();
     await signIn(page, 'office@demo.test', DEMO_PASSWORD);
     await page.goto(`${appUrl()}/app/bookings/${booking.id}`);

@@ -5,8 +5,7 @@
  */
 import fs from 'node:fs';
 import { parse } from 'csv-parse/sync';
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { dateInZone } from '../../shared/dates';
 import { createApp } from '../../server/app';
 import { sequelize } from '../../server/db';
@@ -14,18 +13,12 @@ import { ensureChart } from '../../server/ledger/chart';
 import { ExportRun, type User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe('the Exports screen', () => {
   it('the bookkeeper picks this month, downloads the paid invoices as a file that parses back, and sees it in the history', { timeout: 120_000 }, async () => {
@@ -38,7 +31,7 @@ describe('the Exports screen', () => {
     const invoice = (await office.post(`/api/invoices/${draft.id}/issue`)).body;
     expect((await office.post('/api/payments', { method: 'check', reference: 'Check 5120', invoiceId: invoice.id, amountCents: invoice.totalCents })).status).toBe(201);
 
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
     const page = await context.newPage();
     await signIn(page, company.bookkeeper.email, TEST_PASSWORD);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Exports' }).click();
@@ -85,7 +78,7 @@ describe('the Exports screen', () => {
       { replacements: { org: company.organization.id } },
     );
 
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signIn(page, company.bookkeeper.email, TEST_PASSWORD);
     await page.goto(`${appUrl()}/app/exports?from=2025-01-01&to=2025-12-31`);
@@ -113,7 +106,7 @@ describe('the Exports screen', () => {
 
   it('dates in the wrong order are refused in words; what was typed stays; nothing is sent', { timeout: 60_000 }, async () => {
     const company = await buildCompany();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signIn(page, company.owner.email, TEST_PASSWORD);
     // On a phone.

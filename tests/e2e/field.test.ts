@@ -1,18 +1,12 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { Booking, FieldPhoto, Invoice, Organization, ReturnCheck, User } from '../../server/models';
 import { DEMO_PASSWORD } from '../../server/seed/demo';
 import { bookingBody, buildCustomer, buildItem } from '../factories';
 import { ApiClient } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 // A 1x1 PNG (PNG specification, ISO/IEC 15948): what the phone's camera hands over in this test.
 const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da6364f8cf500f00038601805a347d6b0000000049454e44ae426082', 'hex');
@@ -51,7 +45,7 @@ describe('a crew member runs a stop from a phone', () => {
     const crewPut = await office.agent.put(`/api/field/bookings/${id}/crew`).set('X-CSRF-Token', office.csrf).set('X-Forwarded-For', office.ip).send({ userIds: [crewUser.id] });
     expect(crewPut.status).toBe(200);
 
-    const context = await browser.newContext(PHONE);
+    const context = await browser().newContext(PHONE);
     const page = await context.newPage();
     await signInOnPhone(page, 'crew@demo.test');
 
@@ -114,7 +108,7 @@ describe('a crew member runs a stop from a phone', () => {
     await context.close();
 
     // The office reviews the proposed charges on the booking page and makes the invoice, with a repair amount.
-    const desk = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const desk = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const officePage = await desk.newPage();
     await signIn(officePage, 'office@demo.test', DEMO_PASSWORD);
     await officePage.goto(`${appUrl()}/app/bookings/${id}`);

@@ -6,24 +6,18 @@
  * dialog while it is open (serious and critical violations, as tests/e2e/a11y.test.ts does).
  */
 import AxeBuilder from '@axe-core/playwright';
-import type { Browser, Locator, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Locator, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import type { User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient, uniqueEmail } from '../support';
-import { appUrl, launchBrowser } from './browser';
+import { appUrl, sharedBrowser } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 interface FocusStop {
   /** What has the focus, for messages: tag and visible name. */
@@ -171,7 +165,7 @@ async function signInByKeyboard(page: Page, email: string) {
 describe('forms with the keyboard alone', () => {
   it('sign-in: a wrong password is said in words with the e-mail kept; Shift+Tab goes back; Enter signs in', { timeout: 60_000 }, async () => {
     const company = await buildCompany();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await page.goto(`${appUrl()}/sign-in`);
     await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
@@ -198,7 +192,7 @@ describe('forms with the keyboard alone', () => {
 
   it('a new customer: sent empty, the focus goes to the field that needs fixing; filled, Enter saves it', { timeout: 60_000 }, async () => {
     const company = await buildCompany();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signInByKeyboard(page, company.office.email);
     await page.goto(`${appUrl()}/app/customers`);
@@ -222,7 +216,7 @@ describe('forms with the keyboard alone', () => {
     const company = await buildCompany();
     await buildCustomer(company.organization.id, { name: 'Leocadia Fairweather', email: uniqueEmail('leocadia') });
     await buildItem(company.organization.id, { name: '20x30 pole tent', kind: 'tent', tentType: 'pole', widthFt: 20, lengthFt: 30, quantityOwned: 4, rentalPriceCents: 45_000 });
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signInByKeyboard(page, company.office.email);
     await page.goto(`${appUrl()}/app/bookings/new`);
@@ -269,7 +263,7 @@ describe('forms with the keyboard alone', () => {
 describe('the money dialogs with the keyboard alone', () => {
   it('record a payment, issue a credit note and void an invoice from the invoice page', { timeout: 120_000 }, async () => {
     const s = await companyWithMoney();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signInByKeyboard(page, s.company.owner.email);
 
@@ -321,7 +315,7 @@ describe('the money dialogs with the keyboard alone', () => {
 
   it('additional charges and a refund from the booking page', { timeout: 120_000 }, async () => {
     const s = await companyWithMoney();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signInByKeyboard(page, s.company.owner.email);
     await page.goto(`${appUrl()}/app/bookings/${s.booking.id}`);

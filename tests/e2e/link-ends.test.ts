@@ -1,23 +1,16 @@
 /** What people see when access ends or is narrowed: a withdrawn pay link, and the crew's view of the company rules. */
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { InvoiceRow } from '../../shared/schemas/invoices';
 import { createApp } from '../../server/app';
 import type { User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient, uniqueEmail, uniqueIp, waitForMail } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 async function company() {
   const c = await buildCompany();
@@ -29,7 +22,7 @@ async function company() {
   return { ...c, email, desk, booking };
 }
 
-const context = () => browser.newContext({ viewport: { width: 1280, height: 900 }, extraHTTPHeaders: { 'X-Forwarded-For': uniqueIp() } });
+const context = () => browser().newContext({ viewport: { width: 1280, height: 900 }, extraHTTPHeaders: { 'X-Forwarded-For': uniqueIp() } });
 
 describe('a withdrawn pay link', () => {
   it('the office withdraws an invoice’s pay links on the invoice page; the e-mailed link then tells the customer to ask for a new one', { timeout: 120_000 }, async () => {

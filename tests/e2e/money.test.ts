@@ -1,24 +1,18 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { formatMoney } from '../../shared/money';
 import type { BookingLedger, CustomerCredit, InvoiceRow } from '../../shared/schemas/invoices';
 import { createApp } from '../../server/app';
 import type { User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient, uniqueEmail } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 const usd = (cents: number) => formatMoney(cents, 'USD');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 /** The text of an element named by its test id, once it has settled on a money amount. */
 const amountOn = async (page: Page, testId: string) => (await page.getByTestId(testId).innerText()).trim();
@@ -71,7 +65,7 @@ describe('money after the event: overpayment kept as credit, additional charges,
     expect(booking.totals).toMatchObject({ totalCents: 48_263, depositCents: 14_479 });
     const bookingUrl = `${appUrl()}/app/bookings/${booking.id}`;
 
-    const office = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const office = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const page = await office.newPage();
     await signIn(page, company.office.email, TEST_PASSWORD);
 
@@ -171,7 +165,7 @@ describe('money after the event: overpayment kept as credit, additional charges,
     await office.close();
 
     // 7. The owner credits 40.00 on the balance invoice (first asking too much), then 10.00 on the paid deposit.
-    const ownerContext = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const ownerContext = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const owner = await ownerContext.newPage();
     await signIn(owner, company.owner.email, TEST_PASSWORD);
     await owner.goto(`${appUrl()}/app/invoices/${balanceId}`);
@@ -254,7 +248,7 @@ describe('money after the event: overpayment kept as credit, additional charges,
     await api.post(`/api/invoices/${draft.id}/issue`);
     expect((await api.post('/api/payments', { method: 'cash', invoiceId: draft.id, amountCents: draft.totalCents + 2_500, keepExcessAsCredit: true })).status).toBe(201);
 
-    const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const page = await context.newPage();
     await signIn(page, company.office.email, TEST_PASSWORD);
     await page.goto(`${appUrl()}/app/customers/${customer.id}`);

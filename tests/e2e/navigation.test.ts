@@ -1,15 +1,8 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/seed/demo';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 // What each demo role must see in the main navigation (the mail inbox shows while the fakes run).
 const expected: Record<string, string[]> = {
@@ -23,7 +16,7 @@ const expected: Record<string, string[]> = {
 describe('signing in as each demo role', () => {
   for (const [email, links] of Object.entries(expected)) {
     it(`${email} sees ${links.join(', ')}`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+      const context = await browser().newContext({ viewport: { width: 1280, height: 800 } });
       const page = await context.newPage();
       await signIn(page, email, DEMO_PASSWORD);
       const nav = page.getByRole('navigation', { name: 'Main' });
@@ -36,7 +29,7 @@ describe('signing in as each demo role', () => {
   }
 
   it("Home's Overdue figure opens the overdue invoices, and their count is the same; the crew's Home has no money", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
     await signIn(page, 'office@demo.test', DEMO_PASSWORD);
     const figures = page.getByRole('list', { name: 'Today’s figures' });
@@ -48,7 +41,7 @@ describe('signing in as each demo role', () => {
     await page.getByText(new RegExp(`^${note![1]} invoices?$`)).waitFor();
     await context.close();
 
-    const crewContext = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const crewContext = await browser().newContext({ viewport: { width: 1280, height: 800 } });
     const crewPage = await crewContext.newPage();
     await signIn(crewPage, 'crew@demo.test', DEMO_PASSWORD);
     const crewFigures = crewPage.getByRole('list', { name: 'Today’s figures' });
@@ -58,7 +51,7 @@ describe('signing in as each demo role', () => {
   });
 
   it('a signed-out visit to a page of the app goes to sign-in and comes back after', async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await page.goto(`${appUrl()}/app/settings`);
     await page.waitForURL(/\/sign-in\?next=/);
@@ -72,7 +65,7 @@ describe('signing in as each demo role', () => {
   });
 
   it('a wrong password shows the message and keeps what was typed', async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await page.goto(`${appUrl()}/sign-in`);
     await page.getByLabel('E-mail').fill('office@demo.test');

@@ -1,24 +1,18 @@
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, describe, expect, it } from 'vitest';
 import { formatMoney } from '../../shared/money';
 import type { InvoiceRow } from '../../shared/schemas/invoices';
 import { createApp } from '../../server/app';
 import type { User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient, linkToken, mailTo, uniqueEmail, uniqueIp, waitForMail } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 const usd = (cents: number) => formatMoney(cents, 'USD');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 /**
  * A company, its customer and a quoted booking with its deposit and balance invoices issued.
@@ -51,7 +45,7 @@ async function bookingWithInvoices(customerName: string) {
 
 /** A phone-sized browser with its own client address, so the sign-in rate limits never cross tests. */
 const phone = () =>
-  browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, acceptDownloads: true, extraHTTPHeaders: { 'X-Forwarded-For': uniqueIp() } });
+  browser().newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, acceptDownloads: true, extraHTTPHeaders: { 'X-Forwarded-For': uniqueIp() } });
 
 /** Asks for a sign-in link on the page and follows the one that arrives in the mail sink. */
 async function signInByMail(page: Page, email: string, next?: string) {
@@ -130,7 +124,7 @@ describe('a customer pays a balance from their own pages', () => {
     // The office sees the card processor's fee beside the payment: 2.9% + 30¢ of $337.84 is
     // 979.736 + 30 cents, $10.10 (Stripe pricing page, standard US card rate, from memory; the card fake's rule).
     await expect.poll(async () => (await s.office.get(`/api/bookings/${s.booking.id}/payments`)).body.data[0]?.feeCents, { timeout: 15_000 }).toBe(1_010);
-    const desk = await browser.newContext();
+    const desk = await browser().newContext();
     try {
       const officePage = await desk.newPage();
       await signIn(officePage, s.company.office.email, TEST_PASSWORD);

@@ -1,6 +1,5 @@
 import AxeBuilder from '@axe-core/playwright';
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { addDays, dateInZone } from '../../shared/dates';
 import { formatMoney } from '../../shared/money';
 import type { AgingReport } from '../../shared/schemas/reports';
@@ -9,19 +8,13 @@ import { createApp } from '../../server/app';
 import { Invoice, type User } from '../../server/models';
 import { bookingBody, buildCompany, buildCustomer, buildItem, TEST_PASSWORD } from '../factories';
 import { ApiClient } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
 const app = createApp();
 const as = async (user: User) => (await new ApiClient(app).init()).login(user.email, TEST_PASSWORD);
 const usd = (cents: number) => formatMoney(cents, 'USD');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 async function companyWithDebts() {
   const c = await buildCompany();
@@ -49,7 +42,7 @@ describe('the Reports screen', () => {
     const owner = await as(s.owner);
     const aging = (await owner.get('/api/reports/aging')).body as AgingReport;
 
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signIn(page, s.owner.email, TEST_PASSWORD);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Reports' }).click();
@@ -81,7 +74,7 @@ describe('the Reports screen', () => {
 
   it('the ledger check opens the journal entries behind accounts receivable, which add up to it', async () => {
     const s = await companyWithDebts();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signIn(page, s.bookkeeper.email, TEST_PASSWORD);
     await page.goto(`${appUrl()}/app/reports?tab=aging`);
@@ -98,7 +91,7 @@ describe('the Reports screen', () => {
 
   it('other tabs keep their dates in the address, a period that ends before it starts is refused on its field, and every tab passes an axe check', async () => {
     const s = await companyWithDebts();
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await signIn(page, s.owner.email, TEST_PASSWORD);
     await page.goto(`${appUrl()}/app/reports?tab=stock`);
@@ -133,7 +126,7 @@ describe('the Reports screen', () => {
   it('the office and the crew are not shown Reports, and a direct visit says it is not part of their role', async () => {
     const s = await companyWithDebts();
     for (const user of [s.office, s.crew]) {
-      const context = await browser.newContext();
+      const context = await browser().newContext();
       const page = await context.newPage();
       await signIn(page, user.email, TEST_PASSWORD);
       expect(await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Reports' }).count()).toBe(0);

@@ -1,19 +1,12 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { linkToken, uniqueEmail, waitForMail } from '../support';
-import { appUrl, launchBrowser } from './browser';
+import { appUrl, sharedBrowser } from './browser';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe('signing up a company', () => {
   it('the form says to check the e-mail; its link makes the company and opens the app as its owner', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
     const email = uniqueEmail('browser-founder');
     await page.goto(`${appUrl()}/sign-up`);

@@ -1,17 +1,11 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { Booking, Document } from '../../server/models';
 import { DEMO_PASSWORD } from '../../server/seed/demo';
 import { uniqueEmail, waitForMail } from '../support';
-import { appUrl, launchBrowser, signIn } from './browser';
+import { appUrl, sharedBrowser, signIn } from './browser';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 /** Calls the API as the signed-in page's user (cookies and CSRF header included). */
 async function api(page: Page, method: 'GET' | 'POST', path: string, data?: unknown) {
@@ -23,7 +17,7 @@ async function api(page: Page, method: 'GET' | 'POST', path: string, data?: unkn
 
 describe('a customer signs the rental agreement on a phone', () => {
   it('opens the link from the mail, consents, initials, draws a signature and signs; the booking is reserved', { timeout: 120_000 }, async () => {
-    const office = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const office = await browser().newContext({ viewport: { width: 1366, height: 900 } });
     const desk = await office.newPage();
     await signIn(desk, 'office@demo.test', DEMO_PASSWORD);
     const email = uniqueEmail('phone-signer');
@@ -46,7 +40,7 @@ describe('a customer signs the rental agreement on a phone', () => {
     const link = mail.text.match(/https?:\/\/\S+\/sign\/[A-Za-z0-9_-]+/)![0];
 
     // The customer, on a phone-sized screen, with no account.
-    const phone = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: false });
+    const phone = await browser().newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: false });
     const page = await phone.newPage();
     await page.goto(link);
     await page.getByRole('heading', { level: 1, name: 'Sign your rental agreement' }).waitFor();
