@@ -77,7 +77,7 @@ export async function mailSignupLink(signupRequestId: string, transaction: Trans
   await request.save({ transaction });
   // No company exists yet to file the message under.
   await queueMail(
-    '',
+    null,
     request.email,
     'signup-confirm',
     { name: request.name, organizationName: request.organizationName, hours: SIGNUP_LINK_HOURS, link: `${env.APP_URL}/sign-up/confirm?token=${token}` },

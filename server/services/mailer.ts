@@ -15,8 +15,11 @@ export const ORGANIZATION_HEADER = 'X-Guyline-Organization';
 const templatesDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', 'templates', 'emails');
 
 export interface OutgoingMail {
-  /** The company the mail is sent for: the demo's caught-mail screen shows each company its own. */
-  organizationId: string;
+  /**
+   * The company the mail is sent for: the demo's caught-mail screen shows each company its own.
+   * Null only before a company exists (a sign-up's confirmation link).
+   */
+  organizationId: string | null;
   to: string;
   subject: string;
   text: string;
@@ -61,9 +64,9 @@ export function renderMail(name: string, values: Record<string, unknown>): Omit<
 
 /**
  * Queues a templated e-mail, sent for `organizationId`, to go out by the mail job after the
- * transaction commits; returns the job's id.
+ * transaction commits; returns the job's id. `null` is for mail sent before any company exists.
  */
-export async function queueMail(organizationId: string, to: string, template: string, values: Record<string, unknown>, transaction?: Transaction) {
+export async function queueMail(organizationId: string | null, to: string, template: string, values: Record<string, unknown>, transaction?: Transaction) {
   const mail: OutgoingMail = { organizationId, to, ...renderMail(template, values) };
   return queueJob('send-mail', mail, transaction);
 }

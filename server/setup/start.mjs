@@ -92,6 +92,8 @@ setTimeout(() => {
   say('');
   say(`Guyline runs on ${env.APP_URL}`);
   say(`Caught mail: ${env.APP_URL}/app/dev/mail (the local mail sink; each company's owner sees that company's mail)`);
+  // A new company's sign-up link is sent before the company exists, so no owner's inbox shows it.
+  say(`Sign-up links (no company yet): curl -s -H "Authorization: Bearer $(cat .data/mail-sink.secret)" ${env.MAIL_SINK_URL}/messages`);
   say('Demo sign-ins, password guyline-demo for each:');
   say('  owner@demo.test   office@demo.test   crew@demo.test   books@demo.test');
   say('Press Ctrl-C to stop everything (PostgreSQL too).');
